@@ -1,0 +1,108 @@
+import {
+  boolean,
+  bigint,
+  doublePrecision,
+  index,
+  integer,
+  jsonb,
+  numeric,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  uniqueIndex,
+} from "drizzle-orm/pg-core";
+import {
+  checkSourceEnum,
+  checkTypeEnum,
+  eccentricityPositionEnum,
+  guardBandPolicyEnum,
+  massUnitEnum,
+  outcomeEnum,
+  toleranceBasisEnum,
+} from "./enums";
+import { instruments } from "./instruments";
+import { users } from "./people";
+import { testWeights } from "./weights";
+
+export const checkPlans = pgTable(
+  "check_plans",
+  {
+    id: integer().primaryKey().generatedAlwaysAsIdentity(),
+    instrumentId: integer().notNull().references(() => instruments.id),
+    checkType: checkTypeEnum().notNull(),
+    intervalDays: integer().notNull(),
+    toleranceBasis: toleranceBasisEnum().notNull(),
+    // absolute: grams; percent_of_load: percent; usp41 and oiml_r76_in_service: derived, null here.
+    toleranceValue: numeric(),
+    guardBandPolicy: guardBandPolicyEnum().notNull().default("fraction_of_tolerance"),
+    guardBandFraction: numeric().notNull().default("0.3333333333"),
+    loadG: numeric(),
+    repetitions: integer(),
+    safetyFactor: numeric().notNull().default("2"),
+    riskAssessment: jsonb(),
+    active: boolean().notNull().default(true),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("check_plans_instrument_type_uq").on(t.instrumentId, t.checkType)],
+);
+
+export const checkPlanWeights = pgTable(
+  "check_plan_weights",
+  {
+    planId: integer().notNull().references(() => checkPlans.id),
+    weightId: integer().notNull().references(() => testWeights.id),
+  },
+  (t) => [primaryKey({ columns: [t.planId, t.weightId] })],
+);
+
+export const checks = pgTable(
+  "checks",
+  {
+    id: bigint({ mode: "number" }).primaryKey().generatedAlwaysAsIdentity(),
+    instrumentId: integer().notNull().references(() => instruments.id),
+    checkType: checkTypeEnum().notNull(),
+    planId: integer().references(() => checkPlans.id),
+    weightId: integer().references(() => testWeights.id),
+    operatorId: integer().notNull().references(() => users.id),
+    performedAt: timestamp({ withTimezone: true }).notNull(),
+    recordedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    unit: massUnitEnum().notNull(),
+    // Computed by the engine on the server from the readings, in grams.
+    resultG: doublePrecision().notNull(),
+    expandedUncertaintyG: doublePrecision(),
+    toleranceG: doublePrecision(),
+    acceptanceG: doublePrecision(),
+    outcome: outcomeEnum().notNull(),
+    source: checkSourceEnum().notNull(),
+    idempotencyKey: text(),
+    requestHash: text(),
+    importId: integer(),
+    note: text().notNull().default(""),
+    // A correction is a new row pointing at the one it replaces; the old row is kept.
+    correctsCheckId: bigint({ mode: "number" }),
+    correctionReason: text(),
+    supersededAt: timestamp({ withTimezone: true }),
+  },
+  (t) => [
+    index("checks_series_idx").on(t.instrumentId, t.checkType, t.performedAt),
+    index("checks_performed_idx").on(t.performedAt),
+    uniqueIndex("checks_idempotency_uq").on(t.operatorId, t.idempotencyKey),
+  ],
+);
+
+export const checkReadings = pgTable(
+  "check_readings",
+  {
+    checkId: bigint({ mode: "number" }).notNull().references(() => checks.id),
+    ordinal: integer().notNull(),
+    position: eccentricityPositionEnum(),
+    // Exactly as entered, in the check's unit.
+    value: numeric().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.checkId, t.ordinal] })],
+);
+
+export type CheckPlan = typeof checkPlans.$inferSelect;
+export type Check = typeof checks.$inferSelect;
+export type CheckReading = typeof checkReadings.$inferSelect;

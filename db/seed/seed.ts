@@ -1,0 +1,86 @@
+// Seeds the invented demo scenario (DESIGN.md §6) in one transaction; a second run adds nothing.
+import { eq } from "drizzle-orm";
+import type { Database } from "../../app/lib/db.server";
+import { checkPlans, instruments, memberships, rooms, sites, testWeights, trainingRecords, users } from "../schema";
+import { fleetFor, ROOMS } from "./instruments";
+import { DEMO_PEOPLE, DEMO_SITES } from "./people";
+import { REFERENCE_DATE, SEED, seededRandom } from "./random";
+import { weightsFor } from "./weights";
+
+const day = 86_400_000;
+const isoDate = (d: Date) => d.toISOString().slice(0, 10);
+
+export async function seedDemo(db: Database): Promise<{ created: boolean; instruments: number }> {
+  return db.transaction(async (tx) => {
+    const existing = await tx.select({ id: sites.id }).from(sites).where(eq(sites.code, DEMO_SITES[0].code));
+    if (existing.length) return { created: false, instruments: 0 };
+    const random = seededRandom(SEED);
+
+    const siteRows = await tx.insert(sites).values(DEMO_SITES.map((s) => ({ ...s }))).returning();
+    const siteId = (code: string) => siteRows.find((s) => s.code === code)!.id;
+    const roomRows = await tx.insert(rooms).values(siteRows.flatMap((s) => ROOMS[s.code].map((name) => ({ siteId: s.id, name })))).returning();
+
+    const people = await tx.insert(users).values(DEMO_PEOPLE.map((p) => ({ email: p.email, name: p.name }))).returning();
+    await tx.insert(memberships).values(DEMO_PEOPLE.flatMap((p, i) => p.siteCodes.map((code) => ({ userId: people[i].id, siteId: siteId(code), role: p.role }))));
+    const metrologist = people[DEMO_PEOPLE.findIndex((p) => p.role === "metrologist")];
+
+    const training = DEMO_PEOPLE.flatMap((p, i) =>
+      p.training.map((entry) => {
+        const expired = entry.startsWith("expired:");
+        const trainedOn = new Date(REFERENCE_DATE.getTime() - (expired ? 430 : 120) * day);
+        return {
+          userId: people[i].id,
+          procedure: entry.replace("expired:", ""),
+          trainedOn: isoDate(trainedOn),
+          trainerName: "Milo Ferrante",
+          expiresOn: isoDate(new Date(trainedOn.getTime() + 365 * day)),
+          evidence: expired ? "Annual refresher not yet attended." : "Practical assessment passed.",
+        };
+      }),
+    );
+    if (training.length) await tx.insert(trainingRecords).values(training);
+
+    const weightRows = await tx.insert(testWeights).values(siteRows.flatMap((s) => weightsFor(s.code, s.id, random))).returning();
+
+    let instrumentCount = 0;
+    for (const site of siteRows) {
+      const siteRooms = roomRows.filter((r) => r.siteId === site.id);
+      const specs = fleetFor(site.code);
+      const inserted = await tx
+        .insert(instruments)
+        .values(
+          specs.map((spec, i) => ({
+            siteId: site.id,
+            roomId: siteRooms[i % siteRooms.length].id,
+            assetTag: spec.tag,
+            kind: spec.kind,
+            description: `${spec.kind.replaceAll("_", " ")} ${i + 1}`,
+            serialNumber: `SN-${Math.floor(random() * 9e6 + 1e6)}`,
+            capacityG: spec.capacityG,
+            readabilityG: spec.readabilityG,
+            verificationIntervalG: spec.verificationIntervalG,
+            displayUnit: spec.displayUnit,
+            accuracyClass: spec.accuracyClass,
+            smallestNetWeightG: spec.smallestNetWeightG,
+            riskLevel: spec.riskLevel,
+            ownerId: metrologist.id,
+          })),
+        )
+        .returning();
+      instrumentCount += inserted.length;
+      const siteWeights = weightRows.filter((w) => w.siteId === site.id);
+      await tx.insert(checkPlans).values(inserted.flatMap((inst) => plansFor(inst, siteWeights.length)));
+    }
+    return { created: true, instruments: instrumentCount };
+  });
+}
+
+function plansFor(inst: typeof instruments.$inferSelect, _weights: number) {
+  const high = inst.riskLevel === "high";
+  const plans: (typeof checkPlans.$inferInsert)[] = [
+    { instrumentId: inst.id, checkType: "sensitivity", intervalDays: high ? 1 : 7, toleranceBasis: "usp41" },
+    { instrumentId: inst.id, checkType: "repeatability", intervalDays: high ? 7 : 30, toleranceBasis: "usp41", repetitions: 10 },
+  ];
+  if (inst.riskLevel !== "low") plans.push({ instrumentId: inst.id, checkType: "eccentricity", intervalDays: high ? 30 : 90, toleranceBasis: "oiml_r76_in_service" });
+  return plans;
+}
