@@ -16,6 +16,7 @@ export default defineConfig({
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],
           globalSetup: ["tests/setup/global-setup.ts"],
+          setupFiles: ["tests/setup/integration-env.ts"],
           testTimeout: 30_000,
           hookTimeout: 60_000,
         },

@@ -44,7 +44,7 @@ try {
   step(seeded.created ? `Demo data seeded (${seeded.instruments} instruments)` : "Demo data already present (nothing added)");
   const demo = await writeDemoFile(db, path.join(dataDir, "demo.json"), `http://localhost:${appPort}`);
   await db.$client.end();
-  step("Demo people and API tokens written to .data/demo.json");
+  step("Demo people and their API tokens are in .data/demo.json");
 
   const idp = await startIdentityProvider({ port: idpPort });
   stops.push(idp.stop);
