@@ -11,7 +11,8 @@ export default [
     route("me", "routes/api/me.ts"),
     route("instruments", "routes/api/instruments.ts"),
     route("instruments/:id", "routes/api/instrument.ts"),
-    // analyze: added with the engine
+    route("analyze", "routes/api/analyze.ts"),
+    route("checks", "routes/api/checks.ts"),
   ]),
   layout("routes/app-layout.tsx", [
     index("routes/home.tsx"),
@@ -19,8 +20,10 @@ export default [
     route("instruments/new", "routes/instrument-new.tsx"),
     route("instruments/:id", "routes/instrument-detail.tsx"),
     route("instruments/:id/edit", "routes/instrument-edit.tsx"),
+    route("instruments/:id/record/:type", "routes/record-check.tsx"),
     route("fleet", "routes/fleet.tsx"),
     route("checks-due", "routes/checks-due.tsx"),
     route("admin", "routes/admin.tsx"),
+    route("outbox", "routes/outbox.tsx"),
   ]),
 ] satisfies RouteConfig;

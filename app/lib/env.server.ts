@@ -12,6 +12,8 @@ const EnvSchema = z.object({
   OIDC_REDIRECT_URI: z.string().url(),
   SMTP_URL: z.string().default("smtp://127.0.0.1:2525"),
   MAIL_FROM: z.string().default("Tareline <no-reply@tareline.invalid>"),
+  // Development only: where the SMTP fake writes messages, listed on /outbox.
+  OUTBOX_DIR: z.string().optional(),
   // Shows the demo people on the sign-in page; never set in production.
   DEMO_SIGN_IN: z.enum(["true", "false"]).default("false"),
 });

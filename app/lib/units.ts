@@ -62,3 +62,8 @@ export function naturalUnit(grams: string): MassUnit {
   if (g >= 1000) return "kg";
   return "g";
 }
+
+/** An uncertainty to two significant digits, as calibration certificates state them. */
+export function formatUncertainty(grams: number, unit: MassUnit): string {
+  return `${Number((grams / 10 ** EXPONENT[unit]).toPrecision(2))} ${unit}`;
+}

@@ -2,6 +2,7 @@ import { Form, NavLink, Outlet } from "react-router";
 import { requireViewer } from "~/lib/guards.server";
 import { can, isAdmin, primaryRole, ROLE_LABELS } from "~/lib/permissions";
 import { db } from "~/lib/db.server";
+import { env } from "~/lib/env.server";
 import { listSitesAndRooms } from "~/queries/instruments.server";
 import type { Route } from "./+types/app-layout";
 
@@ -17,6 +18,7 @@ export async function loader({ request }: Route.LoaderArgs) {
       fleet: can(viewer, "export_csv") || can(viewer, "view_audit"),
       due: can(viewer, "record_check"),
       admin: isAdmin(viewer),
+      outbox: Boolean(env().OUTBOX_DIR),
     },
   };
 }
@@ -58,6 +60,7 @@ export default function AppLayout({ loaderData }: Route.ComponentProps) {
           <li><NavLink to="/instruments" className={linkClass}>Instruments</NavLink></li>
           {nav.due ? <li><NavLink to="/checks-due" className={linkClass}>Checks due</NavLink></li> : null}
           {nav.admin ? <li><NavLink to="/admin" className={linkClass}>Admin</NavLink></li> : null}
+          {nav.outbox ? <li><NavLink to="/outbox" className={linkClass}>Outbox (development)</NavLink></li> : null}
         </ul>
         <div className="mt-auto border-t border-rule pt-4 text-sm">
           <p className="font-medium">{viewer.name}</p>

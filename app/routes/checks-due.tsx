@@ -37,7 +37,7 @@ export default function ChecksDue({ loaderData }: Route.ComponentProps) {
             {due.map((p) => (
               <tr key={p.planId} className="border-b border-rule/60 last:border-0">
                 <td className="px-3 py-2"><Link className="text-accent-deep underline" to={`/instruments/${p.instrumentId}`}>{p.assetTag}</Link></td>
-                <td className="px-3 py-2">{TYPE_LABELS[p.checkType]}</td>
+                <td className="px-3 py-2"><Link className="text-accent-deep underline" to={`/instruments/${p.instrumentId}/record/${p.checkType}`}>Record {TYPE_LABELS[p.checkType].toLowerCase()}</Link></td>
                 <td className="px-3 py-2">{p.siteCode}</td>
                 <td className="num px-3 py-2 text-right">{p.intervalDays} d</td>
                 <td className="px-3 py-2">{p.lastAt ? new Date(p.lastAt).toISOString().slice(0, 10) : "Never"}</td>

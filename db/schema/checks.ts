@@ -74,8 +74,13 @@ export const checks = pgTable(
     toleranceG: doublePrecision(),
     acceptanceG: doublePrecision(),
     outcome: outcomeEnum().notNull(),
+    // How the requirement was derived and the engine's intermediate figures (E, s, m_min, ΔI per position…).
+    basis: text().notNull().default(""),
+    details: jsonb().$type<Record<string, number | string | boolean | null>>(),
     source: checkSourceEnum().notNull(),
     idempotencyKey: text(),
+    // Hash of instrument, type, time and readings: the same check arriving twice (a re-import) is stored once.
+    dedupeKey: text(),
     requestHash: text(),
     importId: integer(),
     note: text().notNull().default(""),
@@ -88,6 +93,7 @@ export const checks = pgTable(
     index("checks_series_idx").on(t.instrumentId, t.checkType, t.performedAt),
     index("checks_performed_idx").on(t.performedAt),
     uniqueIndex("checks_idempotency_uq").on(t.operatorId, t.idempotencyKey),
+    uniqueIndex("checks_dedupe_uq").on(t.dedupeKey),
   ],
 );
 
@@ -106,3 +112,24 @@ export const checkReadings = pgTable(
 export type CheckPlan = typeof checkPlans.$inferSelect;
 export type Check = typeof checks.$inferSelect;
 export type CheckReading = typeof checkReadings.$inferSelect;
+
+// Opened by an out-of-tolerance check: every check and day of use since the last passing check of that type.
+export const impactReviews = pgTable(
+  "impact_reviews",
+  {
+    id: integer().primaryKey().generatedAlwaysAsIdentity(),
+    instrumentId: integer().notNull().references(() => instruments.id),
+    failedCheckId: bigint({ mode: "number" }).notNull().references(() => checks.id),
+    checkType: checkTypeEnum().notNull(),
+    lastPassingAt: timestamp({ withTimezone: true }),
+    checksSince: integer().notNull(),
+    daysOfUse: integer().notNull(),
+    openedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    closedAt: timestamp({ withTimezone: true }),
+    closedById: integer().references(() => users.id),
+    conclusion: text(),
+  },
+  (t) => [index("impact_reviews_instrument_idx").on(t.instrumentId, t.openedAt)],
+);
+
+export type ImpactReview = typeof impactReviews.$inferSelect;

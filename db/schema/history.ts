@@ -114,6 +114,14 @@ export const imports = pgTable("imports", {
   finishedAt: timestamp({ withTimezone: true }),
 });
 
+export const importMappings = pgTable("import_mappings", {
+  id: integer().primaryKey().generatedAlwaysAsIdentity(),
+  name: text().notNull().unique(),
+  mapping: jsonb().$type<Record<string, string>>().notNull(),
+  createdById: integer().notNull().references(() => users.id),
+  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+});
+
 export const importRowsRejected = pgTable(
   "import_rows_rejected",
   {

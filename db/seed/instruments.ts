@@ -16,7 +16,7 @@ export interface InstrumentSpec {
 const MODELS: Omit<InstrumentSpec, "tag" | "riskLevel">[] = [
   { kind: "micro_balance", capacityG: "6.1", readabilityG: "0.000001", verificationIntervalG: "0.001", displayUnit: "mg", accuracyClass: "II", smallestNetWeightG: "0.01" },
   { kind: "semi_micro_balance", capacityG: "120", readabilityG: "0.00001", verificationIntervalG: "0.001", displayUnit: "g", accuracyClass: "I", smallestNetWeightG: "0.02" },
-  { kind: "analytical_balance", capacityG: "220", readabilityG: "0.0001", verificationIntervalG: "0.001", displayUnit: "g", accuracyClass: "I", smallestNetWeightG: "0.1" },
+  { kind: "analytical_balance", capacityG: "220", readabilityG: "0.0001", verificationIntervalG: "0.001", displayUnit: "g", accuracyClass: "I", smallestNetWeightG: "0.5" },
   { kind: "precision_balance", capacityG: "6200", readabilityG: "0.01", verificationIntervalG: "0.1", displayUnit: "g", accuracyClass: "II", smallestNetWeightG: "20" },
   { kind: "bench_scale", capacityG: "60000", readabilityG: "2", verificationIntervalG: "20", displayUnit: "kg", accuracyClass: "III", smallestNetWeightG: "2000" },
   { kind: "floor_scale", capacityG: "600000", readabilityG: "100", verificationIntervalG: "100", displayUnit: "kg", accuracyClass: "III", smallestNetWeightG: "20000" },

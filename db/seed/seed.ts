@@ -1,7 +1,8 @@
 // Seeds the invented demo scenario (DESIGN.md §6) in one transaction; a second run adds nothing.
 import { eq } from "drizzle-orm";
 import type { Database } from "../../app/lib/db.server";
-import { checkPlans, instruments, memberships, rooms, sites, testWeights, trainingRecords, users } from "../schema";
+import { KIND_LABELS } from "../../app/lib/instrument-form";
+import { checkPlans, checkPlanWeights, instruments, memberships, rooms, sites, testWeights, trainingRecords, users } from "../schema";
 import { fleetFor, ROOMS } from "./instruments";
 import { DEMO_PEOPLE, DEMO_SITES } from "./people";
 import { REFERENCE_DATE, SEED, seededRandom } from "./random";
@@ -54,7 +55,7 @@ export async function seedDemo(db: Database): Promise<{ created: boolean; instru
             roomId: siteRooms[i % siteRooms.length].id,
             assetTag: spec.tag,
             kind: spec.kind,
-            description: `${spec.kind.replaceAll("_", " ")} ${i + 1}`,
+            description: `${KIND_LABELS[spec.kind]} in ${siteRooms[i % siteRooms.length].name.toLowerCase()}`,
             serialNumber: `SN-${Math.floor(random() * 9e6 + 1e6)}`,
             capacityG: spec.capacityG,
             readabilityG: spec.readabilityG,
@@ -69,13 +70,27 @@ export async function seedDemo(db: Database): Promise<{ created: boolean; instru
         .returning();
       instrumentCount += inserted.length;
       const siteWeights = weightRows.filter((w) => w.siteId === site.id);
-      await tx.insert(checkPlans).values(inserted.flatMap((inst) => plansFor(inst, siteWeights.length)));
+      const plans = await tx.insert(checkPlans).values(inserted.flatMap((inst) => plansFor(inst))).returning();
+      await tx.insert(checkPlanWeights).values(
+        plans.flatMap((plan) => {
+          const inst = inserted.find((i) => i.id === plan.instrumentId)!;
+          const weight = weightForPlan(plan.checkType, Number(inst.capacityG), siteWeights);
+          return weight ? [{ planId: plan.id, weightId: weight.id }] : [];
+        }),
+      );
     }
     return { created: true, instruments: instrumentCount };
   });
 }
 
-function plansFor(inst: typeof instruments.$inferSelect, _weights: number) {
+/** Sensitivity and eccentricity: the largest weight the pan takes; repeatability: the one nearest 5 % of Max (common practice). */
+function weightForPlan(type: string, capacityG: number, weights: { id: number; nominalG: string }[]) {
+  const fitting = weights.filter((w) => Number(w.nominalG) <= capacityG).sort((a, b) => Number(a.nominalG) - Number(b.nominalG));
+  if (type !== "repeatability") return fitting.at(-1);
+  return [...fitting].sort((a, b) => Math.abs(Number(a.nominalG) - 0.05 * capacityG) - Math.abs(Number(b.nominalG) - 0.05 * capacityG))[0];
+}
+
+function plansFor(inst: typeof instruments.$inferSelect) {
   const high = inst.riskLevel === "high";
   const plans: (typeof checkPlans.$inferInsert)[] = [
     { instrumentId: inst.id, checkType: "sensitivity", intervalDays: high ? 1 : 7, toleranceBasis: "usp41" },

@@ -15,4 +15,6 @@ Object.assign(process.env, {
   OIDC_CLIENT_ID: "tareline-test",
   OIDC_CLIENT_SECRET: "tareline-test-secret",
   OIDC_REDIRECT_URI: "http://localhost:3999/auth/callback",
+  // A port per test file; files that check mail start the SMTP fake on it (tests/helpers/mail.ts).
+  SMTP_URL: `smtp://127.0.0.1:${20000 + Math.floor(Math.random() * 20000)}`,
 });

@@ -1,0 +1,26 @@
+// The engine's public surface: pure functions over plain numbers and ISO strings (no I/O, no framework).
+export { analyzeSeries } from "./analyze";
+export type * from "./analyze-types";
+export { cusumArl, cusumDecisionIntervalForArl, ewmaArl, ewmaLimitForArl, upperCusumArl } from "./arl";
+export { controlChartConstants, D2_INDIVIDUALS, shewhartArl } from "./control-constants";
+export { DEFAULT_CUSUM, tabularCusum, type CusumOptions } from "./cusum";
+export { eccentricity, ECCENTRICITY_POSITIONS, type EccentricityReadings, type OffCentrePosition } from "./eccentricity";
+export { DEFAULT_EWMA, ewmaAsymptoticLimits, ewmaChart, type EwmaOptions } from "./ewma";
+export { forecastCrossings, type ToleranceBand } from "./forecast";
+export { reviewInterval, type IntervalRecommendation, type IntervalReview, type IntervalReviewInput } from "./interval-review";
+export { controlLimits, estimateBaseline, meanMovingRange, type Baseline, type BaselineSpec, type ControlLimits } from "./limits";
+export { mannKendall } from "./mann-kendall";
+export { WEIGHT_CLASSES, weightClassMpeGrams, weightClassMpeMg, type WeightClass } from "./oiml-r111";
+export { ACCURACY_CLASSES, classConsistencyWarning, eccentricityTestLoad, initialVerificationMpe, inServiceMpe, type AccuracyClass } from "./oiml-r76";
+export { fitLine, predict, predictionHalfWidth, type LinearFit } from "./ols";
+export { DEFAULT_SAFETY_FACTOR, isFitForNetWeight, minimumWeight, repeatability } from "./repeatability";
+export { classifyResult, guardBand, judgeResult, toleranceLimit, type GuardBandSpec, type Outcome, type ToleranceSpec } from "./requirement";
+export { describeRule } from "./rule-messages";
+export { DEFAULT_RUN_RULE_OPTIONS, evaluateRunRules, isRuleId, resolveRules, RULE_IDS, RULE_SETS, type RuleId, type RunRuleOptions } from "./run-rules";
+export { sensitivityError } from "./sensitivity";
+export { autocorrelationWarning, summarize } from "./summary";
+export { theilSenSlope } from "./theil-sen";
+export { parseIsoInstant } from "./time-axis";
+export { analyzeTrend } from "./trend";
+export { eccentricityUncertainty, indicationUncertainty, roundingUncertainty } from "./uncertainty";
+export { assessWeightSuitability, type TestWeight } from "./weight-suitability";

@@ -1,0 +1,49 @@
+import { describe, expect, it } from "vitest";
+import { normalCdf } from "./distributions";
+import { mannKendall } from "./mann-kendall";
+
+/** S and tie-corrected variance straight from the definitions (O(n²)), for the cross-check. */
+function bruteForce(values: number[]): { s: number; variance: number } {
+  let s = 0;
+  for (let i = 0; i < values.length; i++) for (let j = i + 1; j < values.length; j++) s += Math.sign(values[j] - values[i]);
+  const counts = new Map<number, number>();
+  for (const v of values) counts.set(v, (counts.get(v) ?? 0) + 1);
+  let tie = 0;
+  for (const t of counts.values()) tie += t * (t - 1) * (2 * t + 5);
+  const n = values.length;
+  return { s, variance: (n * (n - 1) * (2 * n + 5) - tie) / 18 };
+}
+
+describe("mannKendall", () => {
+  // Known cases computed by hand from the definitions (C).
+  it.each([
+    { name: "1…5 rising", values: [1, 2, 3, 4, 5], s: 10, variance: 250 / 15, p: 2 * (1 - normalCdf(9 / Math.sqrt(250 / 15))) },
+    { name: "ties: 1, 2, 2, 3", values: [1, 2, 2, 3], s: 5, variance: 138 / 18, p: 2 * (1 - normalCdf(4 / Math.sqrt(138 / 18))) },
+    { name: "falling 4…1", values: [4, 3, 2, 1], s: -6, variance: 156 / 18, p: 2 * (1 - normalCdf(5 / Math.sqrt(156 / 18))) },
+  ])("$name: S = $s", ({ values, s, variance, p }) => {
+    const result = mannKendall(values);
+    expect(result.s).toBe(s);
+    expect(result.variance).toBeCloseTo(variance, 12);
+    expect(result.pValue).toBeCloseTo(p, 12);
+  });
+  it("1…5: z = 9/√16.67 = 2.2045, p = 0.0275 (hand calculation, C)", () => {
+    const result = mannKendall([1, 2, 3, 4, 5]);
+    expect(result.z).toBeCloseTo(2.2045, 4);
+    expect(result.pValue).toBeCloseTo(0.0275, 4);
+  });
+  it("matches the O(n²) definition on 600 quantised values with many ties", () => {
+    let state = 11;
+    const values = Array.from({ length: 600 }, (_, i) => Math.round(((state = (state * 16807) % 2147483647) / 2147483647) * 8 + i / 200));
+    const reference = bruteForce(values);
+    const result = mannKendall(values);
+    expect(result.s).toBe(reference.s);
+    expect(result.variance).toBeCloseTo(reference.variance, 6);
+  });
+  it.each([
+    { name: "empty", values: [] },
+    { name: "one point", values: [3] },
+    { name: "all tied", values: [2, 2, 2, 2] },
+  ])("$name: S = 0, p = 1", ({ values }) => {
+    expect(mannKendall(values)).toMatchObject({ s: 0, pValue: 1 });
+  });
+});

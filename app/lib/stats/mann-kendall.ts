@@ -1,0 +1,36 @@
+import { normalCdf } from "./distributions";
+import { inversionCounter } from "./inversions";
+
+export interface MannKendallResult {
+  /** S = Σᵢ<ⱼ sign(yⱼ − yᵢ). */
+  s: number;
+  /** Var(S) = [n(n − 1)(2n + 5) − Σt(t − 1)(2t + 5)]/18 over groups of t tied values. */
+  variance: number;
+  /** (S − sign S)/√Var(S), with continuity correction. */
+  z: number;
+  /** Two-sided p-value 2(1 − Φ(|z|)). */
+  pValue: number;
+}
+
+/** Mann–Kendall trend test on values in time order, normal approximation with tie correction, in O(n log n); n < 2 or all values tied gives S = 0, z = 0, p = 1. */
+export function mannKendall(values: ArrayLike<number>): MannKendallResult {
+  const n = values.length;
+  if (n < 2) return { s: 0, variance: 0, z: 0, pValue: 1 };
+  const sorted = Float64Array.from(values);
+  const discordant = inversionCounter(n).sortCountingInversions(sorted, n);
+  sorted.sort();
+  let tiedPairs = 0;
+  let tieTerm = 0;
+  for (let start = 0, end = 0; start < n; start = end) {
+    while (end < n && sorted[end] === sorted[start]) end++;
+    const t = end - start;
+    tiedPairs += (t * (t - 1)) / 2;
+    tieTerm += t * (t - 1) * (2 * t + 5);
+  }
+  const concordant = (n * (n - 1)) / 2 - discordant - tiedPairs;
+  const s = concordant - discordant;
+  const variance = (n * (n - 1) * (2 * n + 5) - tieTerm) / 18;
+  if (!(variance > 0)) return { s, variance: 0, z: 0, pValue: 1 };
+  const z = (s - Math.sign(s)) / Math.sqrt(variance);
+  return { s, variance, z, pValue: Math.min(1, 2 * normalCdf(-Math.abs(z))) };
+}
