@@ -23,7 +23,7 @@ export default async function setup(project: TestProject) {
   const appPort = Number(process.env.E2E_PORT ?? 3100);
   const idpPort = Number(process.env.E2E_IDP_PORT ?? 9410);
   const smtpPort = Number(process.env.E2E_SMTP_PORT ?? 2535);
-  const outbox = path.join(root, ".data/test-outbox");
+  const outbox = path.join(root, `.data/test-outbox-${appPort}`);
 
   if (process.env.E2E_SKIP_BUILD !== "1") {
     const build = spawnSync(process.execPath, [path.join(root, "node_modules/.bin/react-router"), "build"], { cwd: root, stdio: ["ignore", "ignore", "inherit"] });

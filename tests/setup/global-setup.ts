@@ -19,7 +19,8 @@ export const EMPTY_TEMPLATE_DATABASE = "tareline_empty";
 
 export default async function setup(project: TestProject) {
   const port = Number(process.env.TEST_PGPORT ?? 54339);
-  const dataDir = path.resolve(import.meta.dirname, "../../.data/test-postgres");
+  // The folder follows the port, so two test runs on different ports never share a cluster.
+  const dataDir = path.resolve(import.meta.dirname, `../../.data/test-postgres-${port}`);
   const first = startCluster({ dataDir, port, database: "postgres", log: () => {} });
   // A fresh cluster per run: stop and remove whatever an interrupted run left behind.
   first.stop();
