@@ -25,8 +25,9 @@ export default async function setup(project: TestProject) {
   const smtpPort = Number(process.env.E2E_SMTP_PORT ?? 2535);
   const outbox = path.join(root, `.data/test-outbox-${appPort}`);
 
+  const buildDir = `.data/e2e-build-${appPort}`;
   if (process.env.E2E_SKIP_BUILD !== "1") {
-    const build = spawnSync(process.execPath, [path.join(root, "node_modules/.bin/react-router"), "build"], { cwd: root, stdio: ["ignore", "ignore", "inherit"] });
+    const build = spawnSync(process.execPath, [path.join(root, "node_modules/.bin/react-router"), "build"], { cwd: root, stdio: ["ignore", "ignore", "inherit"], env: { ...process.env, BUILD_DIR: buildDir } });
     if (build.status !== 0) throw new Error("react-router build failed");
   }
   await dropDatabase(adminUrl, "tareline_e2e");
@@ -34,7 +35,7 @@ export default async function setup(project: TestProject) {
   const idp = await startIdentityProvider({ port: idpPort });
   const smtp = await startSmtpFake({ port: smtpPort, outbox });
   const env = appEnvironment({ databaseUrl: adminUrl.replace(/\/postgres$/, "/tareline_e2e"), appPort, idpPort, smtpPort, secret: "e2e-session-secret-0123456789", outbox });
-  const server = spawn(process.execPath, [path.join(root, "node_modules/.bin/react-router-serve"), path.join(root, "build/server/index.js")], {
+  const server = spawn(process.execPath, [path.join(root, "node_modules/.bin/react-router-serve"), path.join(root, buildDir, "server/index.js")], {
     cwd: root,
     env: { ...process.env, ...env, NODE_ENV: "production" },
     stdio: ["ignore", "ignore", "inherit"],
