@@ -10,6 +10,7 @@ import {
   primaryKey,
   text,
   timestamp,
+  uniqueIndex,
 } from "drizzle-orm/pg-core";
 import { checkTypeEnum, eventKindEnum } from "./enums";
 import { checks } from "./checks";
@@ -75,6 +76,7 @@ export const trainingRecords = pgTable(
     trainerName: text().notNull(),
     expiresOn: date(),
     evidence: text().notNull().default(""),
+    recordedById: integer().references(() => users.id),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("training_records_user_idx").on(t.userId, t.procedure), index("training_records_expiry_idx").on(t.expiresOn)],
@@ -95,7 +97,7 @@ export const notifications = pgTable(
     sentAt: timestamp({ withTimezone: true }),
     readAt: timestamp({ withTimezone: true }),
   },
-  (t) => [index("notifications_user_idx").on(t.userId, t.createdAt), index("notifications_episode_idx").on(t.userId, t.episodeKey)],
+  (t) => [index("notifications_user_idx").on(t.userId, t.createdAt), uniqueIndex("notifications_user_episode_uq").on(t.userId, t.episodeKey)],
 );
 
 export const imports = pgTable("imports", {
@@ -147,9 +149,14 @@ export const auditEvents = pgTable(
     siteId: integer(),
     before: jsonb(),
     after: jsonb(),
+    // Filled by a BEFORE INSERT trigger: position in the hash chain, the previous event's hash and this one's.
+    chainSeq: bigint({ mode: "number" }),
+    prevHash: text(),
+    hash: text(),
   },
   (t) => [
     index("audit_events_at_idx").on(t.at),
+    uniqueIndex("audit_events_chain_seq_uq").on(t.chainSeq),
     index("audit_events_entity_idx").on(t.entityType, t.entityId, t.at),
     index("audit_events_actor_idx").on(t.actorId, t.at),
   ],

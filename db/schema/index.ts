@@ -5,3 +5,4 @@ export * from "./instruments";
 export * from "./weights";
 export * from "./checks";
 export * from "./history";
+export * from "./programme";

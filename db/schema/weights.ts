@@ -15,7 +15,12 @@ export const testWeights = pgTable(
     certificateNumber: text().notNull(),
     calibratedOn: date().notNull(),
     dueOn: date().notNull(),
+    // Storage key of the certificate file (see app/lib/storage.server.ts), its original name and media type.
     certificateFile: text(),
+    certificateFileName: text(),
+    certificateMediaType: text(),
+    // Pieces of one set share a label; a single weight has none.
+    setLabel: text(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("test_weights_site_due_idx").on(t.siteId, t.dueOn)],
