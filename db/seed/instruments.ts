@@ -15,12 +15,17 @@ export interface InstrumentSpec {
 
 const MODELS: Omit<InstrumentSpec, "tag" | "riskLevel">[] = [
   { kind: "micro_balance", capacityG: "6.1", readabilityG: "0.000001", verificationIntervalG: "0.001", displayUnit: "mg", accuracyClass: "II", smallestNetWeightG: "0.01" },
-  { kind: "semi_micro_balance", capacityG: "120", readabilityG: "0.00001", verificationIntervalG: "0.001", displayUnit: "g", accuracyClass: "I", smallestNetWeightG: "0.02" },
+  { kind: "semi_micro_balance", capacityG: "120", readabilityG: "0.00001", verificationIntervalG: "0.001", displayUnit: "g", accuracyClass: "I", smallestNetWeightG: "0.05" },
   { kind: "analytical_balance", capacityG: "220", readabilityG: "0.0001", verificationIntervalG: "0.001", displayUnit: "g", accuracyClass: "I", smallestNetWeightG: "0.5" },
-  { kind: "precision_balance", capacityG: "6200", readabilityG: "0.01", verificationIntervalG: "0.1", displayUnit: "g", accuracyClass: "II", smallestNetWeightG: "20" },
-  { kind: "bench_scale", capacityG: "60000", readabilityG: "2", verificationIntervalG: "20", displayUnit: "kg", accuracyClass: "III", smallestNetWeightG: "2000" },
-  { kind: "floor_scale", capacityG: "600000", readabilityG: "100", verificationIntervalG: "100", displayUnit: "kg", accuracyClass: "III", smallestNetWeightG: "20000" },
+  { kind: "precision_balance", capacityG: "6200", readabilityG: "0.01", verificationIntervalG: "0.1", displayUnit: "g", accuracyClass: "II", smallestNetWeightG: "50" },
+  { kind: "bench_scale", capacityG: "60000", readabilityG: "2", verificationIntervalG: "20", displayUnit: "kg", accuracyClass: "III", smallestNetWeightG: "10000" },
+  { kind: "floor_scale", capacityG: "600000", readabilityG: "100", verificationIntervalG: "100", displayUnit: "kg", accuracyClass: "III", smallestNetWeightG: "250000" },
 ];
+
+// The repeatability story (DESIGN.md §6): a semi-micro balance weighing 20 mg portions, so its worsening s shows.
+const STORY_OVERRIDES: Record<string, Partial<InstrumentSpec>> = {
+  "AVP-SM-02": { smallestNetWeightG: "0.02" },
+};
 
 const CODES: Record<InstrumentKind, string> = {
   micro_balance: "MB",
@@ -44,7 +49,8 @@ export function fleetFor(siteCode: string): InstrumentSpec[] {
     const countOfKind = SITE_MIX[siteCode]?.[model.kind] ?? 0;
     for (let i = 1; i <= countOfKind; i++) {
       const riskLevel = model.kind === "micro_balance" || model.kind === "semi_micro_balance" || (model.kind === "analytical_balance" && i <= 3) ? "high" : model.kind === "floor_scale" ? "low" : "medium";
-      specs.push({ ...model, tag: `${siteCode}-${CODES[model.kind]}-${String(i).padStart(2, "0")}`, riskLevel });
+      const tag = `${siteCode}-${CODES[model.kind]}-${String(i).padStart(2, "0")}`;
+      specs.push({ ...model, tag, riskLevel, ...STORY_OVERRIDES[tag] });
     }
   }
   return specs;

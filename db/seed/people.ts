@@ -24,6 +24,7 @@ export const DEMO_PEOPLE: DemoPerson[] = [
   { email: "sana.manager@quillmere.test", name: "Sana Okonkwo-Hale", role: "site_manager", siteCodes: ["AVP", "QNW", "LNT"], training: [] },
   { email: "tomas.technician@quillmere.test", name: "Tomas Varga-Lind", role: "technician", siteCodes: ["AVP"], training: ["sensitivity", "repeatability", "eccentricity"] },
   { email: "rhea.technician@quillmere.test", name: "Rhea Castellane", role: "technician", siteCodes: ["QNW"], training: ["sensitivity", "expired:repeatability"] },
+  { email: "lio.technician@quillmere.test", name: "Lio Marchetti-Sand", role: "technician", siteCodes: ["LNT"], training: ["sensitivity", "repeatability", "eccentricity"] },
   { email: "anil.analyst@quillmere.test", name: "Anil Brookhart", role: "analyst", siteCodes: ["AVP", "QNW", "LNT"], training: [] },
 ];
 

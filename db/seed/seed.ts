@@ -6,6 +6,7 @@ import { checkPlans, checkPlanWeights, instruments, memberships, rooms, sites, t
 import { fleetFor, ROOMS } from "./instruments";
 import { DEMO_PEOPLE, DEMO_SITES } from "./people";
 import { REFERENCE_DATE, SEED, seededRandom } from "./random";
+import { ECCENTRICITY_STORY, seedHistory } from "./history";
 import { weightsFor } from "./weights";
 
 const day = 86_400_000;
@@ -79,6 +80,7 @@ export async function seedDemo(db: Database): Promise<{ created: boolean; instru
         }),
       );
     }
+    await seedHistory(tx, random);
     return { created: true, instruments: instrumentCount };
   });
 }
@@ -92,10 +94,16 @@ function weightForPlan(type: string, capacityG: number, weights: { id: number; n
 
 function plansFor(inst: typeof instruments.$inferSelect) {
   const high = inst.riskLevel === "high";
+  // High-risk analytical balances serve assays with a process tolerance tighter than USP <41>'s 0.10 %: 1 mg absolute.
+  // Floor scales are checked with loads far below 5 % of Max, where 0.10 % is finer than d: judge them by R 76.
+  const sensitivity: Partial<typeof checkPlans.$inferInsert> =
+    high && inst.kind === "analytical_balance" ? { toleranceBasis: "absolute", toleranceValue: "0.001" } : inst.kind === "floor_scale" ? { toleranceBasis: "oiml_r76_in_service" } : { toleranceBasis: "usp41" };
   const plans: (typeof checkPlans.$inferInsert)[] = [
-    { instrumentId: inst.id, checkType: "sensitivity", intervalDays: high ? 1 : 7, toleranceBasis: "usp41" },
+    { instrumentId: inst.id, checkType: "sensitivity", intervalDays: high ? 1 : 7, toleranceBasis: "usp41", ...sensitivity },
     { instrumentId: inst.id, checkType: "repeatability", intervalDays: high ? 7 : 30, toleranceBasis: "usp41", repetitions: 10 },
   ];
-  if (inst.riskLevel !== "low") plans.push({ instrumentId: inst.id, checkType: "eccentricity", intervalDays: high ? 30 : 90, toleranceBasis: "oiml_r76_in_service" });
+  // The eccentricity story's balance is checked monthly, so the step after its relocation shows.
+  const eccentricityDays = high || inst.assetTag === ECCENTRICITY_STORY ? 30 : 90;
+  if (inst.riskLevel !== "low") plans.push({ instrumentId: inst.id, checkType: "eccentricity", intervalDays: eccentricityDays, toleranceBasis: "oiml_r76_in_service" });
   return plans;
 }

@@ -74,7 +74,7 @@ describe("POST /api/v1/checks", () => {
   });
 
   it("takes an out-of-tolerance instrument out of service, opens an impact review and mails the metrologist", async () => {
-    await post(sensitivity("AVP-AB-06", "200.0001", "2026-11-20T08:00:00Z"));
+    await post(sensitivity("AVP-AB-06", "200.0001", "2026-11-30T05:00:00Z"));
     const result = await post(sensitivity("AVP-AB-06", "200.5000"), { key: "k-fail" });
     expect(result.status).toBe(201);
     const body = result.body as { id: number; outcome: string; instrumentStatus: string };
@@ -82,7 +82,8 @@ describe("POST /api/v1/checks", () => {
     const [inst] = await db().select().from(instruments).where(eq(instruments.assetTag, "AVP-AB-06"));
     expect(inst.status).toBe("out_of_service");
     const [review] = await db().select().from(impactReviews).where(eq(impactReviews.failedCheckId, body.id));
-    expect(review).toMatchObject({ checksSince: 1, daysOfUse: 10 });
+    // The good check at 05:00 UTC and the failure at 06:45 UTC: one check in question, on one day of use.
+    expect(review).toMatchObject({ checksSince: 1, daysOfUse: 1 });
     const sent = await db().select().from(notifications).where(eq(notifications.instrumentId, inst.id));
     expect(sent.length).toBeGreaterThan(0);
     expect(sent.every((n) => n.sentAt !== null)).toBe(true);
