@@ -11,6 +11,7 @@ export default [
     route("me", "routes/api/me.ts"),
     route("instruments", "routes/api/instruments.ts"),
     route("instruments/:id", "routes/api/instrument.ts"),
+    route("instruments/:id/series", "routes/api/instrument-series.ts"),
     route("analyze", "routes/api/analyze.ts"),
     route("checks", "routes/api/checks.ts"),
   ]),
