@@ -1,7 +1,7 @@
 // Reference lines, shading and annotations drawn with the chart's own scales.
 import { DataContext } from "@visx/xychart";
 import { useContext } from "react";
-import type { ChartEvent, ChartLine, ChartStage, TrendSample } from "./chart-types";
+import type { ChartEvent, ChartStage, TrendSample } from "./chart-types";
 
 type Scale = (v: Date | number) => number | undefined;
 
@@ -75,10 +75,4 @@ export function TrendLayer({ samples }: { samples: TrendSample[] }) {
       <polyline points={pts("fit").join(" ")} className="fill-none stroke-accent" strokeWidth={1.5} />
     </g>
   );
-}
-
-export function PolylineLayer({ line, className, dash }: { line: ChartLine[]; className: string; dash?: string }) {
-  const s = useScales();
-  if (!s || line.length < 2) return null;
-  return <polyline aria-hidden="true" points={line.map((p) => `${s.x(p.at)},${s.y(p.value)}`).join(" ")} className={`fill-none ${className}`} strokeWidth={1.5} strokeDasharray={dash} />;
 }

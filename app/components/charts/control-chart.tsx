@@ -1,8 +1,8 @@
 // A control chart: points shaped by outcome, statistical limits per stage, requirement limits, events,
 // EWMA and trend band. Stateless; the parent gives it its size and data.
-import { Axis, GlyphSeries, Grid, Tooltip, XYChart } from "@visx/xychart";
+import { Axis, GlyphSeries, Grid, LineSeries, Tooltip, XYChart } from "@visx/xychart";
 import { useMemo, type ReactNode } from "react";
-import { EventLayer, PolylineLayer, RequirementLayer, StageLayer, TrendLayer } from "./chart-layers";
+import { EventLayer, RequirementLayer, StageLayer, TrendLayer } from "./chart-layers";
 import type { ChartEvent, ChartLine, ChartPoint, ChartStage, TrendSample } from "./chart-types";
 import { PointGlyph, SignalGlyph } from "./glyphs";
 
@@ -15,7 +15,8 @@ export interface ControlChartProps {
   tolerance?: number | null;
   twoSided?: boolean;
   ewma?: ChartLine[];
-  extraLines?: { line: ChartLine[]; className: string; dash?: string }[];
+  /** Lines drawn as data series (EWMA, CUSUM sums, minimum weight); colours are theme variables. */
+  extraLines?: { key: string; line: ChartLine[]; color: string; dash?: string; width?: number }[];
   trend?: TrendSample[];
   events?: ChartEvent[];
   xDomain: [Date, Date];
@@ -25,8 +26,8 @@ export interface ControlChartProps {
   children?: ReactNode;
 }
 
-const x = (p: ChartPoint) => p.at;
-const y = (p: ChartPoint) => p.value;
+const x = (p: { at: Date }) => p.at;
+const y = (p: { value: number }) => p.value;
 
 function yDomain(props: ControlChartProps): [number, number] {
   const values = props.points.map((p) => p.value);
@@ -34,6 +35,7 @@ function yDomain(props: ControlChartProps): [number, number] {
   if (props.tolerance != null) values.push(props.tolerance, props.twoSided ? -props.tolerance : 0);
   for (const t of props.trend ?? []) values.push(t.fit);
   for (const l of props.extraLines ?? []) values.push(...l.line.map((p) => p.value));
+  if (!values.length) values.push(0, 1);
   const lo = Math.min(...values);
   const hi = Math.max(...values);
   const pad = (hi - lo || Math.abs(hi) || 1) * 0.08;
@@ -51,20 +53,21 @@ export function ControlChart(props: ControlChartProps) {
       <RequirementLayer from={props.xDomain[0]} to={props.xDomain[1]} acceptance={props.acceptance ?? null} tolerance={props.tolerance ?? null} twoSided={props.twoSided ?? true} />
       <EventLayer events={props.events ?? []} />
       <TrendLayer samples={props.trend ?? []} />
-      {props.extraLines?.map((l, i) => <PolylineLayer key={i} line={l.line} className={l.className} dash={l.dash} />)}
-      {props.ewma?.length ? <PolylineLayer line={props.ewma} className="stroke-signal" /> : null}
+      {props.extraLines?.map((l) => (l.line.length ? <LineSeries key={l.key} dataKey={l.key} data={l.line} xAccessor={x} yAccessor={y} stroke={l.color} strokeWidth={l.width ?? 1.5} strokeDasharray={l.dash} /> : null))}
+      {props.ewma?.length ? <LineSeries dataKey="ewma" data={props.ewma} xAccessor={x} yAccessor={y} stroke="var(--color-signal)" strokeWidth={1.5} /> : null}
       {props.children}
       <GlyphSeries dataKey="points" data={props.points} xAccessor={x} yAccessor={y} renderGlyph={({ x: gx, y: gy, datum }) => <PointGlyph x={gx} y={gy} shape={datum.shape} />} />
       <GlyphSeries dataKey="signals" data={signalled} xAccessor={x} yAccessor={y} renderGlyph={({ x: gx, y: gy }) => <SignalGlyph x={gx} y={gy} />} />
       <Axis orientation="bottom" numTicks={6} tickFormat={(v: Date) => props.formatTick(v)} stroke="var(--color-ink-soft)" tickStroke="var(--color-ink-soft)" tickLabelProps={{ fill: "var(--color-ink-soft)", fontSize: 11 }} />
       <Axis orientation="left" numTicks={5} label={props.yLabel} labelOffset={40} tickFormat={(v: number) => props.formatValue(v)} stroke="var(--color-ink-soft)" tickStroke="var(--color-ink-soft)" tickLabelProps={{ fill: "var(--color-ink-soft)", fontSize: 11 }} labelProps={{ fill: "var(--color-ink)", fontSize: 12 }} />
-      <Tooltip<ChartPoint>
+      <Tooltip<ChartPoint | ChartLine>
         snapTooltipToDatumX
         snapTooltipToDatumY
         showVerticalCrosshair
         renderTooltip={({ tooltipData }) => {
-          const datum = tooltipData?.nearestDatum?.datum;
-          if (!datum) return null;
+          const candidate = tooltipData?.datumByKey.points?.datum ?? tooltipData?.nearestDatum?.datum;
+          if (!candidate || !("tooltip" in candidate)) return null;
+          const datum = candidate as ChartPoint;
           return (
             <div className="max-w-72 text-xs">
               {datum.tooltip.map((line, i) => <p key={i} className={i === 0 ? "font-semibold" : ""}>{line}</p>)}

@@ -95,9 +95,9 @@ function CusumFigure({ series, common, unit, factor }: { series: InstrumentSerie
   const line = (key: "cusumHigh" | "cusumLow") => series.points.filter((p) => p[key] !== null).map((p) => ({ at: new Date(p.at), value: p[key]! * factor }));
   const stages = series.stages.map((s) => ({ from: new Date(s.from), to: new Date(s.to), center: null, warning: null, control: s.baseline ? ([5 * s.baseline.sigma * factor, 5 * s.baseline.sigma * factor] as [number, number]) : null, baselineEnd: null }));
   return (
-    <ChartFigure title={`CUSUM of E (${unit})`} description="Upper sum C⁺ and lower sum C⁻ (k = 0.5σ̂); a sum above the decision interval h = 5σ̂ signals a shift of the mean." height={200} legend={<ChartLegend items={["control", "event"]} />}>
+    <ChartFigure title={`CUSUM of E (${unit})`} description="Upper sum C⁺ and lower sum C⁻ (k = 0.5σ̂); a sum above the decision interval h = 5σ̂ signals a shift of the mean." height={200} legend={<p className="mt-2 text-xs text-ink-soft">Solid ink: C⁺ (upward shift). Dashed teal: C⁻ (downward shift). Dashed ink: decision interval h = 5σ̂ of each stage. Dotted verticals: events that reset the baseline.</p>}>
       {(width, height) => (
-        <ControlChart {...common} stages={stages} width={width} height={height} points={[]} extraLines={[{ line: line("cusumHigh"), className: "stroke-ink" }, { line: line("cusumLow"), className: "stroke-accent", dash: "4 2" }]} yLabel={unit} />
+        <ControlChart {...common} stages={stages} width={width} height={height} points={[]} extraLines={[{ key: "cusum-high", line: line("cusumHigh"), color: "var(--color-ink)" }, { key: "cusum-low", line: line("cusumLow"), color: "var(--color-accent)", dash: "4 2" }]} yLabel={unit} />
       )}
     </ChartFigure>
   );
@@ -126,7 +126,7 @@ function MinimumWeightFigure({ series, common }: { series: InstrumentSeries; com
           width={width}
           height={height}
           points={[]}
-          extraLines={[{ line: points, className: "stroke-ink" }, { line: limit, className: "stroke-out" }]}
+          extraLines={[{ key: "minimum-weight", line: points, color: "var(--color-ink)" }, { key: "limit", line: limit, color: "var(--color-out)", width: 2.5 }]}
           formatValue={(v) => v.toFixed(unit === "mg" ? 1 : 3)}
           yLabel={unit}
         />
