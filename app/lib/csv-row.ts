@@ -1,0 +1,98 @@
+// One parsed CSV record → the cells of Tareline's fields, or the reasons the line cannot be read at all.
+// Structural checks only (columns, lengths, empties); what the values mean is judged on the server.
+import { MAX_RECORD_CHARS, readMarker } from "./csv-guard";
+import { FIELD_LABELS, type ColumnMapping, type Delimiter, type ImportField, REQUIRED_FIELDS } from "./csv-mapping";
+
+export const MAX_CELL_CHARS = 2_000;
+const RAW_KEPT_CHARS = 500;
+
+export interface RowProblem {
+  line: number;
+  column: string | null;
+  reason: string;
+  raw: string | null;
+}
+
+export interface ColumnLayout {
+  labels: string[];
+  index: Partial<Record<ImportField, number>>;
+  readings: number[];
+  delimiter: Delimiter;
+}
+
+export type RowValues = Partial<Record<Exclude<ImportField, "readings">, string>>;
+export type ReadRow = { kind: "empty" } | { kind: "problems"; problems: RowProblem[] } | { kind: "row"; values: RowValues; readingCells: string[]; raw: string };
+
+export function columnLayout(labels: string[], mapping: ColumnMapping, delimiter: Delimiter): ColumnLayout {
+  const index: ColumnLayout["index"] = {};
+  const readings: number[] = [];
+  labels.forEach((label, i) => {
+    const field = mapping[label];
+    if (field === "readings") readings.push(i);
+    else if (field) index[field] = i;
+  });
+  return { labels, index, readings, delimiter };
+}
+
+/** Physical lines a record covers: one, plus the line breaks inside its quoted cells. */
+export function linesSpanned(fields: string[]): number {
+  const marker = readMarker(fields);
+  if (marker) return 1 + marker.newlines;
+  let lines = 1;
+  for (const f of fields) {
+    for (let at = f.indexOf("\n"); at !== -1; at = f.indexOf("\n", at + 1)) lines++;
+  }
+  return lines;
+}
+
+export function rawText(fields: string[], delimiter: string): string {
+  const text = fields.join(delimiter);
+  return text.length > RAW_KEPT_CHARS ? `${text.slice(0, RAW_KEPT_CHARS)}…` : text;
+}
+
+const fmt = (n: number) => n.toLocaleString("en-GB");
+
+export function readRow(fields: string[], layout: ColumnLayout, line: number): ReadRow {
+  const marker = readMarker(fields);
+  if (marker) {
+    const reason =
+      marker.kind === "too_long"
+        ? `The line is ${fmt(marker.length)} characters long; Tareline reads lines of up to ${fmt(MAX_RECORD_CHARS)} characters.`
+        : "The quoting on this line is broken: a quoted value must end with a quote followed by the delimiter or the end of the line (write a quote inside a value as two quotes).";
+    return { kind: "problems", problems: [{ line, column: null, reason, raw: null }] };
+  }
+  if (fields.every((f) => f.trim() === "")) return { kind: "empty" };
+  const raw = rawText(fields, layout.delimiter);
+  const problem = (column: string | null, reason: string): RowProblem => ({ line, column, reason, raw });
+  const problems: RowProblem[] = [];
+  const width = layout.labels.length;
+  if (fields.length > width && fields.slice(width).some((f) => f.trim() !== "")) {
+    const hint = layout.delimiter === "," ? " A decimal comma in a comma-separated file must be inside quotes, or the file saved with ; between columns." : "";
+    problems.push(problem(null, `The line has ${fields.length} values but the header has ${width} columns.${hint}`));
+  }
+  const cell = (i: number) => (i < fields.length ? fields[i].trim() : undefined);
+  const values: RowValues = {};
+  for (const [field, i] of Object.entries(layout.index) as [Exclude<ImportField, "readings">, number][]) {
+    const value = cell(i);
+    if (value === undefined) problems.push(problem(layout.labels[i], `Column "${layout.labels[i]}" is missing on this line (it has ${fields.length} of ${width} values).`));
+    else values[field] = value;
+  }
+  const readingCells: string[] = [];
+  for (const i of layout.readings) {
+    const value = cell(i);
+    if (value === undefined) problems.push(problem(layout.labels[i], `Column "${layout.labels[i]}" is missing on this line (it has ${fields.length} of ${width} values).`));
+    else readingCells.push(value);
+  }
+  fields.forEach((f, i) => {
+    if (f.length > MAX_CELL_CHARS) problems.push(problem(layout.labels[i] ?? null, `The value is ${fmt(f.length)} characters long; a cell holds at most ${fmt(MAX_CELL_CHARS)}.`));
+  });
+  if (problems.length) return { kind: "problems", problems };
+  for (const field of REQUIRED_FIELDS) {
+    const empty = field === "readings" ? readingCells.every((c) => c === "") : !values[field as Exclude<ImportField, "readings">];
+    if (empty) {
+      const column = field === "readings" ? layout.labels[layout.readings[0]] : layout.labels[layout.index[field] ?? 0];
+      problems.push(problem(column, `${FIELD_LABELS[field]} is empty.`));
+    }
+  }
+  return problems.length ? { kind: "problems", problems } : { kind: "row", values, readingCells, raw };
+}
