@@ -110,3 +110,10 @@ export function assessRisk(input: RiskInput): RiskAssessment {
   if (!("eccentricity" in suggestedIntervals)) reasoning.push("At low risk an eccentricity check adds little between calibrations; add one if loads sit off-centre.");
   return { version: 1, inputs: input, consequenceScore, tightnessScore, score, band, suggestedIntervals, reasoning, unfit: minimum.unfit };
 }
+
+/** The interval an approved review leads to: extend × 1.5 (at most 365 days), shorten ÷ 2 (at least 1 day), keep unchanged. */
+export function proposedIntervalDays(recommendation: "extend" | "keep" | "shorten", current: number): number {
+  if (recommendation === "extend") return Math.min(365, Math.max(current + 1, Math.round(current * 1.5)));
+  if (recommendation === "shorten") return Math.max(1, Math.floor(current / 2));
+  return current;
+}

@@ -7,7 +7,7 @@ import type { DbOrTx } from "../lib/db.server";
 const GENESIS = "0".repeat(64);
 const BATCH = 5_000;
 
-interface ChainRow {
+type ChainRow = {
   id: string;
   chain_seq: string | null;
   prev_hash: string | null;
@@ -20,7 +20,7 @@ interface ChainRow {
   site_id: string | null;
   before: string | null;
   after: string | null;
-}
+};
 
 export type ChainVerdict =
   | { ok: true; events: number }

@@ -17,6 +17,8 @@ export async function loader({ request }: Route.LoaderArgs) {
     nav: {
       fleet: can(viewer, "export_csv") || can(viewer, "view_audit"),
       due: can(viewer, "record_check"),
+      schedule: !can(viewer, "record_check"),
+      audit: can(viewer, "view_audit"),
       admin: isAdmin(viewer),
       outbox: Boolean(env().OUTBOX_DIR),
     },
@@ -59,12 +61,17 @@ export default function AppLayout({ loaderData }: Route.ComponentProps) {
           {nav.fleet ? <li><NavLink to="/fleet" className={linkClass}>Fleet</NavLink></li> : null}
           <li><NavLink to="/instruments" className={linkClass}>Instruments</NavLink></li>
           {nav.due ? <li><NavLink to="/checks-due" className={linkClass}>Checks due</NavLink></li> : null}
+          {nav.schedule ? <li><NavLink to="/schedule" className={linkClass}>Schedule</NavLink></li> : null}
+          <li><NavLink to="/weights" className={linkClass}>Test weights</NavLink></li>
+          <li><NavLink to="/training" className={linkClass}>Training</NavLink></li>
+          {nav.audit ? <li><NavLink to="/audit" className={linkClass}>Audit trail</NavLink></li> : null}
           {nav.admin ? <li><NavLink to="/admin" className={linkClass}>Admin</NavLink></li> : null}
           {nav.outbox ? <li><NavLink to="/outbox" className={linkClass}>Outbox (development)</NavLink></li> : null}
         </ul>
         <div className="mt-auto border-t border-rule pt-4 text-sm">
           <p className="font-medium">{viewer.name}</p>
           <p className="text-ink-faint">{viewer.role}</p>
+          <NavLink to="/schedule/email" className="text-accent underline">E-mail digests</NavLink>
           <Form method="post" action="/logout" className="mt-2">
             <button type="submit" className="text-accent underline">Sign out</button>
           </Form>

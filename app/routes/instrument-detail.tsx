@@ -1,4 +1,4 @@
-import { useSearchParams } from "react-router";
+import { Link, useSearchParams } from "react-router";
 import { ChecksTable } from "~/components/instruments/checks-table";
 import { RangeControl } from "~/components/instruments/range-control";
 import { ReleasePanel } from "~/components/instruments/release-panel";
@@ -110,6 +110,10 @@ export default function InstrumentDetail({ loaderData, actionData }: Route.Compo
               ))}
             </dl>
           </section>
+          <nav aria-label="Check programme" className="flex flex-wrap gap-x-4 gap-y-1 text-sm">
+            <Link to={`/instruments/${i.id}/plans`} className="text-accent underline">Check plans</Link>
+            <Link to={`/print/instruments/${i.id}`} className="text-accent underline">Print history</Link>
+          </nav>
           {canRecord && i.status === "in_service" ? (
             <div className="grid gap-2" aria-label="Record a check">
               {CHECK_TYPES.map((t) => <ButtonLink key={t} variant={t === "sensitivity" ? "primary" : "secondary"} to={`/instruments/${i.id}/record/${t}`}>Record {t} check</ButtonLink>)}
