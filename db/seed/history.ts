@@ -62,7 +62,7 @@ function sensitivityReadings(inst: InstrumentRow, load: number, at: Date, bias: 
 function repeatabilityReadings(inst: InstrumentRow, load: number, at: Date, random: () => number): ParsedReading[] {
   const d = Number(inst.readabilityG);
   let sigma = inst.kind === "floor_scale" ? 0.45 * d : 0.5 * d;
-  if (inst.assetTag === REPEATABILITY_STORY) sigma = d * (0.42 + 0.2 * Math.min(1, Math.max(0, (300 - daysAgo(at)) / 300)));
+  if (inst.assetTag === REPEATABILITY_STORY) sigma = d * (0.42 + 0.38 * Math.min(1, Math.max(0, (300 - daysAgo(at)) / 300)));
   return Array.from({ length: 10 }, () => reading(load + sigma * normal(random), inst));
 }
 

@@ -22,9 +22,9 @@ const MODELS: Omit<InstrumentSpec, "tag" | "riskLevel">[] = [
   { kind: "floor_scale", capacityG: "600000", readabilityG: "100", verificationIntervalG: "100", displayUnit: "kg", accuracyClass: "III", smallestNetWeightG: "250000" },
 ];
 
-// The repeatability story (DESIGN.md §6): a semi-micro balance weighing 20 mg portions, so its worsening s shows.
+// The repeatability story (DESIGN.md §6): a semi-micro balance weighing 30 mg portions, so its worsening s shows.
 const STORY_OVERRIDES: Record<string, Partial<InstrumentSpec>> = {
-  "AVP-SM-02": { smallestNetWeightG: "0.02" },
+  "AVP-SM-02": { smallestNetWeightG: "0.03" },
 };
 
 const CODES: Record<InstrumentKind, string> = {

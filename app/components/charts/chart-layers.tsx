@@ -19,7 +19,8 @@ function HLine({ from, to, value, className, dash, width = 1 }: { from: Date; to
   return <line x1={Math.max(s.left, s.x(from) ?? s.left)} x2={Math.min(s.right, s.x(to) ?? s.right)} y1={y} y2={y} className={className} strokeDasharray={dash} strokeWidth={width} />;
 }
 
-export function StageLayer({ stages }: { stages: ChartStage[] }) {
+/** Statistical limits per stage; for sizes (s, |ΔI|) a limit below zero means nothing and is not drawn. */
+export function StageLayer({ stages, nonNegative = false }: { stages: ChartStage[]; nonNegative?: boolean }) {
   const s = useScales();
   if (!s) return null;
   return (
@@ -28,8 +29,8 @@ export function StageLayer({ stages }: { stages: ChartStage[] }) {
         <g key={i}>
           {stage.baselineEnd ? <rect x={Math.max(s.left, s.x(stage.from) ?? s.left)} width={Math.max(0, (s.x(stage.baselineEnd) ?? 0) - Math.max(s.left, s.x(stage.from) ?? s.left))} y={s.top} height={s.bottom - s.top} className="fill-paper-deep" /> : null}
           {stage.center !== null ? <HLine from={stage.from} to={stage.to} value={stage.center} className="stroke-ink" /> : null}
-          {stage.warning?.map((v) => <HLine key={`w${v}`} from={stage.from} to={stage.to} value={v} className="stroke-ink" dash="1 3" />)}
-          {stage.control?.map((v) => <HLine key={`c${v}`} from={stage.from} to={stage.to} value={v} className="stroke-ink" dash="6 4" />)}
+          {stage.warning?.filter((v) => !nonNegative || v >= 0).map((v) => <HLine key={`w${v}`} from={stage.from} to={stage.to} value={v} className="stroke-ink" dash="1 3" />)}
+          {stage.control?.filter((v) => !nonNegative || v >= 0).map((v) => <HLine key={`c${v}`} from={stage.from} to={stage.to} value={v} className="stroke-ink" dash="6 4" />)}
         </g>
       ))}
     </g>
@@ -57,7 +58,7 @@ export function EventLayer({ events }: { events: ChartEvent[] }) {
         return (
           <g key={i}>
             <line x1={x} x2={x} y1={s.top} y2={s.bottom} className="stroke-ink-faint" strokeDasharray="2 2" />
-            <text x={x + 3} y={s.top + 10} className="fill-ink-soft text-[10px]">{e.label}</text>
+            <text x={x + 3} y={s.top + 10 + (i % 2) * 12} className="fill-ink-soft text-[10px]">{e.label}</text>
           </g>
         );
       })}

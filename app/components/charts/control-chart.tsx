@@ -49,7 +49,7 @@ export function ControlChart(props: ControlChartProps) {
   return (
     <XYChart width={props.width} height={props.height} margin={{ top: 16, right: 16, bottom: 32, left: 64 }} xScale={{ type: "time", domain: props.xDomain }} yScale={{ type: "linear", domain, nice: true }}>
       <Grid columns={false} numTicks={5} lineStyle={{ stroke: "var(--color-rule)", strokeWidth: 0.5 }} />
-      <StageLayer stages={props.stages ?? []} />
+      <StageLayer stages={props.stages ?? []} nonNegative={props.twoSided === false} />
       <RequirementLayer from={props.xDomain[0]} to={props.xDomain[1]} acceptance={props.acceptance ?? null} tolerance={props.tolerance ?? null} twoSided={props.twoSided ?? true} />
       <EventLayer events={props.events ?? []} />
       <TrendLayer samples={props.trend ?? []} />

@@ -76,7 +76,11 @@ export function SeriesPanel({ instrumentId, params, initial, from, now }: { inst
 function ForecastLine({ series, now }: { series: InstrumentSeries; now: Date }) {
   const f = series.forecast;
   const zone = series.instrument.timeZone;
-  const when = (at: string | number | null) => (typeof at === "string" ? `${formatDay(at, zone)} (${relativeDays(at, now)})` : "not forecast");
+  const when = (at: string | number | null) => {
+    if (typeof at !== "string") return "not forecast";
+    if (Date.parse(at) <= now.getTime()) return `already beyond (fitted line since ${formatDay(at, zone)})`;
+    return `${formatDay(at, zone)} (${relativeDays(at, now)})`;
+  };
   if (!f || (!f.toleranceAt && !f.acceptanceAt && !f.earliestToleranceAt)) {
     return <p className="text-sm text-ink-soft">Forecast to tolerance: none — no significant trend towards a limit in the current stage.</p>;
   }

@@ -52,7 +52,9 @@ export function reviewInterval(input: IntervalReviewInput): IntervalReview {
   const utilisation = streak === 0 ? [] : (input.utilisation?.slice(-streak) ?? []);
   const tooClose = utilisation.filter((u) => u > maxUtilisation).length;
   const blockers: string[] = [];
-  if (streak < extendAfter) blockers.push(`only ${streak} of the ${extendAfter} consecutive checks within acceptance needed to extend`);
+  if (streak < extendAfter) {
+    blockers.push(streak === 0 ? "the latest check was not within acceptance" : `only ${streak} of the ${extendAfter} consecutive checks within acceptance needed to extend`);
+  }
   if (tooClose > 0) blockers.push(`${tooClose} of them used more than ${Math.round(maxUtilisation * 100)} % of the tolerance`);
   if (signalCount > 0) blockers.push(`${signalCount} statistical ${signalCount === 1 ? "signal" : "signals"} since the latest reset`);
   if (daysToTolerance !== null && daysToTolerance <= 2 * intervalDays) {
