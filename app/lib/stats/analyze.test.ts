@@ -1,3 +1,4 @@
+// Expected values: computed by hand from the definitions in DESIGN §3 (C) unless a published source is named.
 import { describe, expect, it } from "vitest";
 import { analyzeSeries } from "./analyze";
 import { describeWithSharedData, readCsv, readDat } from "./shared-data.testing";

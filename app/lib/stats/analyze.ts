@@ -82,23 +82,34 @@ function baselineWarning(input: AnalyzeSeriesInput, n: number): string {
 type SignalChannel = [rule: PointSignalId, firing: Int8Array, describe: (direction: number) => string];
 
 function collectSignals(channels: readonly SignalChannel[], n: number) {
-  const pointSignals: (PointSignalId[] | undefined)[] = new Array(n);
+  // Points share one frozen list per combination of firing channels: most firing points repeat a few combinations.
+  const masks = new Int32Array(n);
   const signals: SeriesSignal[] = [];
-  for (const [rule, firing, describe] of channels) {
-    for (let i = 0; i < n; i++) if (firing[i] !== 0) (pointSignals[i] ??= []).push(rule);
+  channels.forEach(([rule, firing, describe], channel) => {
+    for (let i = 0; i < n; i++) if (firing[i] !== 0) masks[i] |= 1 << channel;
     for (const index of episodeStarts(firing)) signals.push({ rule, index, message: describe(firing[index]) });
+  });
+  const lists = new Map<number, readonly PointSignalId[]>([[0, NO_SIGNALS]]);
+  const pointSignals: (readonly PointSignalId[])[] = new Array(n);
+  for (let i = 0; i < n; i++) {
+    let list = lists.get(masks[i]);
+    if (list === undefined) {
+      list = Object.freeze(channels.filter((_, channel) => masks[i] & (1 << channel)).map(([rule]) => rule));
+      lists.set(masks[i], list);
+    }
+    pointSignals[i] = list;
   }
   signals.sort((a, b) => a.index - b.index);
   return { pointSignals, signals };
 }
 
-function buildPoints(values: readonly number[], pointSignals: (PointSignalId[] | undefined)[], ewma: EwmaResult | null, cusum: CusumResult | null): AnalyzedPoint[] {
+function buildPoints(values: readonly number[], pointSignals: (readonly PointSignalId[])[], ewma: EwmaResult | null, cusum: CusumResult | null): AnalyzedPoint[] {
   const points: AnalyzedPoint[] = new Array(values.length);
   for (let i = 0; i < values.length; i++) {
     points[i] = {
       index: i,
       value: values[i],
-      signals: pointSignals[i] ?? NO_SIGNALS,
+      signals: pointSignals[i],
       ewma: ewma ? ewma.z[i] : null,
       ewmaUcl: ewma ? ewma.ucl[i] : null,
       ewmaLcl: ewma ? ewma.lcl[i] : null,

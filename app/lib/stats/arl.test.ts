@@ -1,7 +1,7 @@
+import { existsSync, readFileSync } from "node:fs";
+import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 import { cusumArl, cusumDecisionIntervalForArl, ewmaArl, ewmaLimitForArl, upperCusumArl } from "./arl";
-import { readFileSync, existsSync } from "node:fs";
-import path from "node:path";
 
 /** |x − published| within half a unit of the published value's last digit. */
 function toPublishedRounding(value: number, published: string): void {
@@ -28,7 +28,7 @@ describe("tabular CUSUM ARL by Markov chain (Brook & Evans discretisation, 200 s
 });
 
 // EWMA ARLs of Montgomery's ch. 9 EWMA table (from memory, M; typed in notebooks-free-data/montgomery-ewma-arl/).
-const ewmaTable = path.resolve(process.cwd(), "notebooks-free-data/montgomery-ewma-arl/ewma-arl.csv");
+const ewmaTable = fileURLToPath(new URL("../../../notebooks-free-data/montgomery-ewma-arl/ewma-arl.csv", import.meta.url));
 describe.skipIf(!existsSync(ewmaTable))("EWMA ARL by Markov chain (Lucas & Saccucci style, 201 states), values from memory (M)", () => {
   const rows = existsSync(ewmaTable)
     ? readFileSync(ewmaTable, "utf8").split("\n").filter((l) => l && !l.startsWith("#")).slice(1).map((l) => l.split(","))

@@ -36,12 +36,6 @@ export function twoSidedTPValue(t: number, df: number): number {
   return Math.min(1, 2 * studentTCdf(-Math.abs(t), df));
 }
 
-/** Fisher F quantile F(p; d1, d2) for 0 < p < 1 and d1, d2 > 0; NaN otherwise. */
-export function fisherFQuantile(p: number, d1: number, d2: number): number {
-  if (!(d1 > 0 && d2 > 0) || !(p > 0 && p < 1)) return Number.NaN;
-  return jStat.centralF.inv(p, d1, d2);
-}
-
 /** ln Γ(x) for x > 0 (jstat). */
 export function logGamma(x: number): number {
   return jStat.gammaln(x);

@@ -7,7 +7,6 @@ declare module "jstat" {
   interface JStat {
     normal: ContinuousDistribution;
     studentt: ContinuousDistribution;
-    centralF: ContinuousDistribution;
     gammaln(x: number): number;
   }
   const jStat: JStat;

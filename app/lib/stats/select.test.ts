@@ -1,3 +1,4 @@
+// Checked against a full sort of the same numbers (C).
 import { describe, expect, it } from "vitest";
 import { medianInPlace, selectKth } from "./select";
 

@@ -32,6 +32,7 @@ export class SlopeSelector {
   private countLo = 0;
   private countHi = 0;
   private lowOrderValid = false;
+  private wideSample: Float64Array | null = null;
 
   constructor(private readonly xs: Float64Array, private readonly ys: Float64Array, private readonly pairs: number) {
     this.n = xs.length;
@@ -45,8 +46,9 @@ export class SlopeSelector {
 
   /** Median slope of x-sorted points with `pairs` distinct-x pairs: ranks ⌊(N − 1)/2⌋ and ⌊N/2⌋ (0-based), averaged when they differ. */
   median(): number {
-    const first = (this.pairs - 1) >> 1;
-    const second = this.pairs >> 1;
+    // Pair counts pass 2³¹ from about 65 000 points, so no bit shifts here.
+    const first = Math.floor((this.pairs - 1) / 2);
+    const second = Math.floor(this.pairs / 2);
     const [a, b] = this.selectRanks(first, second);
     if (first === second) return a;
     return (a + (Number.isNaN(b) ? this.selectRanks(second, second)[0] : b)) / 2;
@@ -57,30 +59,27 @@ export class SlopeSelector {
     [this.lo, this.hi] = this.range;
     [this.countLo, this.countHi] = [0, this.pairs];
     this.lowOrderValid = false;
-    const { sample } = this;
-    const m = sample.length;
-    const at = ((first + 0.5) / this.pairs) * m;
-    const spread = 2 * Math.sqrt(at * (1 - at / m)) + 1;
-    const likely = selectKth(sample, Math.min(m - 1, Math.floor(at)));
-    const lowerGuess = selectKth(sample, Math.max(0, Math.floor(at - spread)));
-    const upperGuess = selectKth(sample, Math.min(m - 1, Math.ceil(at + spread)));
-    const scale = upperGuess > lowerGuess ? upperGuess - lowerGuess : selectKth(sample, m - 1) - selectKth(sample, 0);
-    const tieWidth = 1e-6 * scale + 1e-9 * Math.abs(likely) + Number.MIN_VALUE;
-    const limit = Math.max(4 * this.n, this.pairs / 8);
-    let repeats = 0;
-    for (let i = 0; i < m; i++) if (sample[i] === likely) repeats++;
-    if ((repeats / m) * this.pairs > limit / 4) {
-      // Readings on a coarse grid give many identical slopes: test the repeated value first.
-      this.probe(likely, first);
-      this.probe(likely + tieWidth, first);
-      if (this.lo === likely && this.hi === likely + tieWidth && second < this.countHi) return [likely, likely];
+    const { lowerGuess, upperGuess, tieWidth } = bracketGuess(this.sample, (first + 0.5) / this.pairs);
+    // Pairs listed at once: enough to skip narrowing for a thousand points, bounded (64n) for a hundred thousand.
+    const limit = Math.max(4 * this.n, Math.min(this.pairs / 8, 64 * this.n));
+    const [tied, tiedCount] = mostFrequentBetween(this.sample, lowerGuess, upperGuess);
+    if ((tiedCount / this.sample.length) * this.pairs > limit / 4) {
+      // Readings on a coarse grid give blocks of identical slopes (0 above all): carve the block out of the
+      // bracket, or answer with it when the median lies inside it.
+      this.probe(tied, first);
+      this.probe(tied + tieWidth, first);
+      if (this.lo === tied && this.hi === tied + tieWidth && second < this.countHi) return [tied, tied];
     }
+    // A four times larger sample halves the bracket, and so the pairs to list, for the cost of drawing it.
+    this.wideSample ??= sampleSlopes(this.xs, this.ys, 4 * SAMPLE_SIZE);
+    const wide = bracketGuess(this.wideSample, (first + 0.5) / this.pairs);
     // Just above a sample slope, so that a block of slopes equal to it stays below the bracket.
-    this.probe(lowerGuess + tieWidth, first);
-    if (this.countLo <= first && upperGuess > this.lo && upperGuess < this.hi) {
-      const listed = this.listBelow(upperGuess, limit);
+    this.probe(wide.lowerGuess + tieWidth, first);
+    const listTo = Math.min(wide.upperGuess, this.hi);
+    if (this.countLo <= first && listTo > this.lo) {
+      const listed = this.listBelow(listTo, limit);
       if (listed && this.countLo + listed.length > second) return this.pick(listed, first, second);
-      if (listed) [this.lo, this.countLo] = [upperGuess, this.countLo + listed.length];
+      if (listed) [this.lo, this.countLo] = [listTo, this.countLo + listed.length];
       else this.lowOrderValid = false;
     }
     for (let round = 0; round < MAX_ROUNDS && this.countHi - this.countLo > limit; round++) {
@@ -178,6 +177,30 @@ export class SlopeSelector {
     const pad = (high - low) * 1e-6 + (Math.abs(high) + Math.abs(low)) * 1e-12 + Number.MIN_VALUE;
     return [low - pad, high + pad];
   }
+}
+
+/** Sample slopes around the sample quantile q (± 2 standard errors of a quantile) and a width below which slopes count as equal. */
+function bracketGuess(sample: Float64Array, q: number): { lowerGuess: number; upperGuess: number; tieWidth: number } {
+  const m = sample.length;
+  const at = q * m;
+  const spread = 2 * Math.sqrt(at * (1 - q)) + 1;
+  const lowerGuess = selectKth(sample, Math.max(0, Math.floor(at - spread)));
+  const upperGuess = selectKth(sample, Math.min(m - 1, Math.ceil(at + spread)));
+  const scale = upperGuess > lowerGuess ? upperGuess - lowerGuess : selectKth(sample, m - 1) - selectKth(sample, 0);
+  const tieWidth = 1e-6 * scale + 1e-9 * Math.max(Math.abs(lowerGuess), Math.abs(upperGuess)) + Number.MIN_VALUE;
+  return { lowerGuess, upperGuess, tieWidth };
+}
+
+/** The most frequent value among those in [low, high] and how often it occurs; [NaN, 0] when none lies there. */
+function mostFrequentBetween(values: Float64Array, low: number, high: number): [number, number] {
+  const inside = values.filter((v) => v >= low && v <= high).sort();
+  let best = Number.NaN;
+  let bestCount = 0;
+  for (let start = 0, end = 0; start < inside.length; start = end) {
+    while (end < inside.length && inside[end] === inside[start]) end++;
+    if (end - start > bestCount) [best, bestCount] = [inside[start], end - start];
+  }
+  return [best, bestCount];
 }
 
 /** Slopes of `size` pseudo-random pairs with distinct x (xorshift32, fixed seed: the result never depends on it). */

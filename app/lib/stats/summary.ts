@@ -22,21 +22,6 @@ export function decimalGrid(values: ArrayLike<number>): number | null {
   return null;
 }
 
-/** Arithmetic mean Σx/n (two-pass corrected); NaN for empty input. */
-export function mean(values: ArrayLike<number>): number {
-  return summarize(values).mean;
-}
-
-/** Sample standard deviation s = √(Σ(x − x̄)²/(n − 1)); NaN for n < 2; 0 for zero variance. */
-export function sampleStandardDeviation(values: ArrayLike<number>): number {
-  return summarize(values).sd;
-}
-
-/** Lag-1 autocorrelation r₁ = Σ(xᵢ − x̄)(xᵢ₊₁ − x̄)/Σ(xᵢ − x̄)²; NaN for n < 2 or zero variance. */
-export function lag1Autocorrelation(values: ArrayLike<number>): number {
-  return summarize(values).lag1;
-}
-
 /** n, mean, s (n − 1) and lag-1 autocorrelation in one pass over deviations; NaN where undefined (mean of empty input, s and r₁ of fewer than 2 points, r₁ of zero variance). */
 export function summarize(values: ArrayLike<number>): SeriesSummary {
   const n = values.length;

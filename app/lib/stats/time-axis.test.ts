@@ -1,3 +1,4 @@
+// Expected instants: Date.UTC and Date.parse of the same calendar values (C); the fast path is cross-checked against Date.parse.
 import { describe, expect, it } from "vitest";
 import { daysSinceFirst, isoAfterFirst, parseIsoInstant } from "./time-axis";
 
