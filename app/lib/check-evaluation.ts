@@ -159,8 +159,8 @@ export function evaluateCheck(input: {
   // Each ΔI is a difference of two readings, so rounding enters twice; the weight cancels out of a difference.
   const budget = indicationUncertainty({ readability: d, indication: byPosition.centre });
   const judgement = judgeResult(ecc.maxAbsDeviation, load, spec, guardSpec(requirement, budget.expanded));
-  const problems = weightProblems(weight, judgement.tolerance, input.checkDate).filter((p) => !/mpe|uncertainty/.test(p));
-  if (problems.length) return { ok: false, problems };
+  // ΔI is a difference of two readings of the same load, so the weight's mass error cancels: only its certificate must be current.
+  if (weight.dueOn < input.checkDate) return { ok: false, problems: [`Weight ${weight.identifier}: its certificate was due on ${weight.dueOn}, before the check date ${input.checkDate}.`] };
   return {
     ok: true,
     evaluation: {
