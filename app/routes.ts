@@ -15,6 +15,8 @@ export default [
     route("instruments", "routes/api/instruments.ts"),
     route("instruments/:id", "routes/api/instrument.ts"),
     route("instruments/:id/series", "routes/api/instrument-series.ts"),
+    route("fleet", "routes/api/fleet.ts"),
+    route("fleet/history", "routes/api/fleet-history.ts"),
     route("analyze", "routes/api/analyze.ts"),
     route("checks", "routes/api/checks.ts"),
   ]),

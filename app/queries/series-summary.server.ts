@@ -63,7 +63,8 @@ export async function refreshSeriesSummary(db: DbOrTx, instrumentId: number, typ
     center: analysis?.baseline?.center ?? null,
     sigma: analysis?.baseline?.sigma ?? null,
     activeSignals: [...(lastPoint?.signals ?? [])],
-    trend: analysis?.trend ?? null,
+    // The latest result and its limits ride along with the trend so the fleet view needs no second query.
+    trend: last ? { ...(analysis?.trend ?? {}), latestValue: last.value, toleranceG: last.toleranceG, acceptanceG: last.acceptanceG } : null,
     forecast: analysis?.forecast ?? null,
     review,
   };

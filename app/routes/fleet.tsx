@@ -1,11 +1,17 @@
+import { Form, Link } from "react-router";
+import { FleetHistoryPanels } from "~/components/fleet/fleet-history-panels";
+import { FleetTable } from "~/components/fleet/fleet-table";
+import { SiteComparison } from "~/components/fleet/site-comparison";
 import { PageHeader } from "~/components/ui/page-header";
-import { StatusBadge } from "~/components/ui/status-badge";
+import { PanelBoundary } from "~/components/ui/panel-boundary";
 import { db } from "~/lib/db.server";
+import { FleetParamsSchema } from "~/lib/fleet-params";
 import { requireViewer } from "~/lib/guards.server";
 import { forbiddenPage } from "~/lib/http.server";
 import { can } from "~/lib/permissions";
-import { fleetStatusBySite } from "~/queries/fleet.server";
-import { INSTRUMENT_STATUSES } from "../../db/schema/enums";
+import { parseSearchParams } from "~/lib/search-params";
+import { compareSites, listFleet } from "~/queries/fleet-overview.server";
+import { listSitesAndRooms } from "~/queries/instruments.server";
 import type { Route } from "./+types/fleet";
 
 export const meta = () => [{ title: "Fleet · Tareline" }];
@@ -13,37 +19,42 @@ export const meta = () => [{ title: "Fleet · Tareline" }];
 export async function loader({ request }: Route.LoaderArgs) {
   const viewer = await requireViewer(request);
   if (!can(viewer, "view_audit")) throw forbiddenPage("The fleet view is for site managers, metrologists, analysts and administrators.");
-  const rows = await fleetStatusBySite(db(), viewer);
-  const bySite = new Map<number, { code: string; name: string; counts: Record<string, number> }>();
-  for (const r of rows) {
-    const site = bySite.get(r.siteId) ?? { code: r.siteCode, name: r.siteName, counts: {} };
-    site.counts[r.status] = r.total;
-    bySite.set(r.siteId, site);
-  }
-  return { sites: [...bySite.values()] };
+  const params = parseSearchParams(FleetParamsSchema, request.url);
+  const now = new Date();
+  const [rows, places] = await Promise.all([listFleet(db(), viewer, params, now), listSitesAndRooms(db(), viewer)]);
+  return { rows, sites: compareSites(rows), params, siteOptions: places.sites, now: now.toISOString() };
 }
 
 export default function Fleet({ loaderData }: Route.ComponentProps) {
+  const { rows, sites, params, siteOptions } = loaderData;
+  const now = new Date(loaderData.now);
+  const overdue = rows.filter((r) => r.overdue).length;
   return (
     <>
-      <PageHeader title="Fleet" subtitle="Instruments per site by status. Drift, forecasts and overdue checks join this view as check histories arrive." />
-      <table className="w-full max-w-3xl rounded-md border border-rule bg-card text-sm">
-        <caption className="sr-only">Instruments per site and status</caption>
-        <thead className="border-b border-rule text-ink-soft">
-          <tr>
-            <th scope="col" className="px-3 py-2 text-left font-medium">Site</th>
-            {INSTRUMENT_STATUSES.map((s) => <th key={s} scope="col" className="px-3 py-2 text-right font-medium"><StatusBadge status={s} /></th>)}
-          </tr>
-        </thead>
-        <tbody>
-          {loaderData.sites.map((s) => (
-            <tr key={s.code} className="border-b border-rule/60 last:border-0">
-              <th scope="row" className="px-3 py-2 text-left font-medium">{s.code} · {s.name}</th>
-              {INSTRUMENT_STATUSES.map((st) => <td key={st} className="num px-3 py-2 text-right">{s.counts[st] ?? 0}</td>)}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <PageHeader title="Fleet" subtitle={`${rows.length} instruments · ${overdue} with an overdue check · drift and forecast from the ${params.type} checks`} />
+      <Form method="get" className="mb-4 flex flex-wrap items-end gap-3 text-sm" aria-label="Filter the fleet">
+        <label className="flex flex-col gap-1"><span className="text-xs font-medium text-ink-soft">Site</span>
+          <select name="site" defaultValue={params.site ?? ""} className="rounded-md border border-rule bg-card px-2 py-1.5"><option value="">All my sites</option>{siteOptions.map((s) => <option key={s.id} value={s.id}>{s.code} · {s.name}</option>)}</select>
+        </label>
+        <label className="flex flex-col gap-1"><span className="text-xs font-medium text-ink-soft">Drift from</span>
+          <select name="type" defaultValue={params.type} className="rounded-md border border-rule bg-card px-2 py-1.5"><option value="sensitivity">Sensitivity</option><option value="repeatability">Repeatability</option><option value="eccentricity">Eccentricity</option></select>
+        </label>
+        <label className="flex flex-col gap-1"><span className="text-xs font-medium text-ink-soft">Status</span>
+          <select name="status" defaultValue={params.status ?? ""} className="rounded-md border border-rule bg-card px-2 py-1.5"><option value="">Any</option><option value="in_service">In service</option><option value="out_of_service">Out of service</option><option value="retired">Retired</option></select>
+        </label>
+        <label className="flex items-center gap-2 pb-1.5"><input type="checkbox" name="overdue" value="1" defaultChecked={params.overdue === "1"} /> Overdue only</label>
+        <input type="hidden" name="sort" value={params.sort} />
+        <input type="hidden" name="dir" value={params.dir} />
+        <button type="submit" className="rounded-md border border-rule bg-card px-3 py-1.5 font-medium hover:bg-paper-deep">Apply</button>
+        <Link to="/fleet" className="py-1.5 text-accent underline">Clear</Link>
+      </Form>
+      <div className="grid gap-6">
+        <SiteComparison sites={sites} />
+        {rows.length ? <FleetTable rows={rows} params={params} now={now} /> : <p className="rounded-md border border-dashed border-rule bg-card p-8 text-center text-ink-soft">No instrument matches these filters.</p>}
+        <PanelBoundary title="Recent history">
+          <FleetHistoryPanels site={params.site} now={now} />
+        </PanelBoundary>
+      </div>
     </>
   );
 }
