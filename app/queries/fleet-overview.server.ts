@@ -74,8 +74,9 @@ export async function listFleet(db: Database, viewer: Viewer, params: FleetParam
              coalesce(o.in90, 0) as in90, coalesce(o.guard90, 0) as guard90, coalesce(o.out90, 0) as out90,
              (t.trend->>'slope')::float8 * 30 / nullif((t.trend->>'toleranceG')::float8, 0) * 100 as drift,
              (t.trend->>'pValue')::float8 < 0.05 as drift_significant,
-             nullif(t.forecast->>'toleranceAt', '')::timestamptz as forecast_at,
-             nullif(t.forecast->>'earliestToleranceAt', '')::timestamptz as earliest_at,
+             -- A very flat but significant trend can forecast a crossing centuries away: not a date to show.
+             case when t.forecast->>'toleranceAt' ~ '^[0-9]{4}-' then (t.forecast->>'toleranceAt')::timestamptz end as forecast_at,
+             case when t.forecast->>'earliestToleranceAt' ~ '^[0-9]{4}-' then (t.forecast->>'earliestToleranceAt')::timestamptz end as earliest_at,
              (rep.trend->>'latestValue')::float8 * 2000 as minimum_weight,
              p.safety_factor
       from instruments i
