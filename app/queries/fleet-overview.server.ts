@@ -44,6 +44,8 @@ const ORDER: Record<FleetParams["sort"], SQL> = {
 export async function listFleet(db: Database, viewer: Viewer, params: FleetParams, now: Date): Promise<FleetRow[]> {
   const ids = visibleSiteIds(viewer);
   const since = new Date(now.getTime() - 90 * 86_400_000);
+  // Forecasts further out than five years say "no meaningful trend", not a date.
+  const horizon = new Date(now.getTime() + 5 * 365 * 86_400_000);
   const where = sql.join(
     [
       sql`true`,
@@ -75,8 +77,8 @@ export async function listFleet(db: Database, viewer: Viewer, params: FleetParam
              (t.trend->>'slope')::float8 * 30 / nullif((t.trend->>'toleranceG')::float8, 0) * 100 as drift,
              (t.trend->>'pValue')::float8 < 0.05 as drift_significant,
              -- A very flat but significant trend can forecast a crossing centuries away: not a date to show.
-             case when t.forecast->>'toleranceAt' ~ '^[0-9]{4}-' then (t.forecast->>'toleranceAt')::timestamptz end as forecast_at,
-             case when t.forecast->>'earliestToleranceAt' ~ '^[0-9]{4}-' then (t.forecast->>'earliestToleranceAt')::timestamptz end as earliest_at,
+             case when t.forecast->>'toleranceAt' ~ '^[0-9]{4}-' and (t.forecast->>'toleranceAt')::timestamptz < ${horizon} then (t.forecast->>'toleranceAt')::timestamptz end as forecast_at,
+             case when t.forecast->>'earliestToleranceAt' ~ '^[0-9]{4}-' and (t.forecast->>'earliestToleranceAt')::timestamptz < ${horizon} then (t.forecast->>'earliestToleranceAt')::timestamptz end as earliest_at,
              (rep.trend->>'latestValue')::float8 * 2000 as minimum_weight,
              p.safety_factor
       from instruments i

@@ -19,6 +19,7 @@ export async function loader({ request }: Route.LoaderArgs) {
       due: can(viewer, "record_check"),
       schedule: !can(viewer, "record_check"),
       audit: can(viewer, "view_audit"),
+      exports: can(viewer, "export_csv"),
       admin: isAdmin(viewer),
       outbox: Boolean(env().OUTBOX_DIR),
     },
@@ -64,6 +65,7 @@ export default function AppLayout({ loaderData }: Route.ComponentProps) {
           {nav.schedule ? <li><NavLink to="/schedule" className={linkClass}>Schedule</NavLink></li> : null}
           <li><NavLink to="/weights" className={linkClass}>Test weights</NavLink></li>
           <li><NavLink to="/training" className={linkClass}>Training</NavLink></li>
+          {nav.exports ? <li><NavLink to="/export" className={linkClass}>Exports</NavLink></li> : null}
           {nav.audit ? <li><NavLink to="/audit" className={linkClass}>Audit trail</NavLink></li> : null}
           {nav.admin ? <li><NavLink to="/admin" className={linkClass}>Admin</NavLink></li> : null}
           {nav.outbox ? <li><NavLink to="/outbox" className={linkClass}>Outbox (development)</NavLink></li> : null}

@@ -2,6 +2,7 @@ import { Link } from "react-router";
 import { SortHeader } from "~/components/ui/sort-header";
 import { StatusBadge } from "~/components/ui/status-badge";
 import { formatDay, relativeDays } from "~/lib/format";
+import { describeSignal } from "~/lib/signal-advice";
 import type { FleetParams } from "~/lib/fleet-params";
 import { KIND_LABELS } from "~/lib/instrument-form";
 import { formatMass, naturalUnit } from "~/lib/units";
@@ -45,7 +46,7 @@ export function FleetTable({ rows, params, now }: { rows: FleetRow[]; params: Fl
             {h("lastCheck", "Last check")}
             {h("nextDue", "Next due")}
             <th scope="col" className="px-3 py-2 text-left font-medium">Last 90 days</th>
-            {h("drift", "Drift, % of T per 30 d", "text-right")}
+            {h("drift", "Drift /30 d", "text-right")}
             {h("forecast", "Forecast to tolerance")}
             {h("signals", "Signals")}
             <th scope="col" className="px-3 py-2 text-left font-medium">Minimum weight</th>
@@ -55,19 +56,26 @@ export function FleetTable({ rows, params, now }: { rows: FleetRow[]; params: Fl
           {rows.map((r) => (
             <tr key={r.id} className="border-b border-rule/60 align-top last:border-0 hover:bg-paper">
               <td className="px-3 py-2">
-                <Link to={`/instruments/${r.id}`} className="font-medium text-accent-deep underline-offset-2 hover:underline">{r.assetTag}</Link>
-                <span className="block text-xs text-ink-soft">{KIND_LABELS[r.kind as InstrumentKind]}</span>
+                <Link to={`/instruments/${r.id}`} className="font-medium whitespace-nowrap text-accent-deep underline-offset-2 hover:underline">{r.assetTag}</Link>
+                <span className="block text-xs whitespace-nowrap text-ink-soft">{KIND_LABELS[r.kind as InstrumentKind]}</span>
               </td>
-              <td className="px-3 py-2">{r.siteCode}{r.roomName ? ` · ${r.roomName}` : ""}</td>
+              <td className="px-3 py-2 whitespace-nowrap">{r.siteCode}{r.roomName ? ` · ${r.roomName}` : ""}</td>
               <td className="px-3 py-2"><StatusBadge status={r.status} /></td>
               <td className="num px-3 py-2 whitespace-nowrap">{r.lastCheckAt ? formatDay(r.lastCheckAt, r.timeZone) : "Never"}</td>
               <td className="num px-3 py-2 whitespace-nowrap">
                 {r.nextDueAt ? (r.overdue ? <strong className="text-out">Overdue since {formatDay(r.nextDueAt, r.timeZone)}</strong> : formatDay(r.nextDueAt, r.timeZone)) : "—"}
               </td>
-              <td className="px-3 py-2"><Outcomes row={r} /></td>
-              <td className="num px-3 py-2 text-right">{r.driftPercentPer30Days === null ? "—" : `${r.driftPercentPer30Days >= 0 ? "+" : ""}${r.driftPercentPer30Days.toFixed(1)} %${r.driftSignificant ? "" : " (n.s.)"}`}</td>
+              <td className="px-3 py-2 text-xs"><Outcomes row={r} /></td>
+              <td className="num px-3 py-2 text-right whitespace-nowrap">{r.driftPercentPer30Days === null ? "—" : `${r.driftPercentPer30Days >= 0 ? "+" : ""}${r.driftPercentPer30Days.toFixed(1)} %${r.driftSignificant ? "" : " (n.s.)"}`}</td>
               <td className="num px-3 py-2 whitespace-nowrap">{r.forecastToleranceAt ? `${formatDay(r.forecastToleranceAt, r.timeZone)} (${relativeDays(r.forecastToleranceAt, now)})` : "—"}</td>
-              <td className="px-3 py-2 text-xs">{r.activeSignals.length ? r.activeSignals.join(", ") : "—"}</td>
+              <td className="px-3 py-2 text-xs whitespace-nowrap" title={r.activeSignals.map((s) => describeSignal(s).name).join("\n")}>
+                {r.activeSignals.length ? (
+                  <span className="inline-flex items-center gap-1">
+                    <svg width="9" height="9" viewBox="0 0 10 10" aria-hidden="true"><path d="M5 9 1 2h8Z" className="fill-signal" /></svg>
+                    {r.activeSignals.length} active<span className="sr-only">: {r.activeSignals.map((s) => describeSignal(s).name).join("; ")}</span>
+                  </span>
+                ) : "—"}
+              </td>
               <td className="px-3 py-2"><MinimumWeight row={r} /></td>
             </tr>
           ))}
