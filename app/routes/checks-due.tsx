@@ -23,7 +23,7 @@ export default function ChecksDue({ loaderData }: Route.ComponentProps) {
   return (
     <>
       <PageHeader
-        title="Checks due today"
+        title="Checks due"
         subtitle={`${due.length} of ${total} planned checks at your sites are due today or overdue, by each site's local day.`}
         action={<Link to="/schedule" className="text-sm text-accent underline">Next 8 weeks</Link>}
       />
