@@ -64,6 +64,7 @@ export function SeriesPanel({ instrumentId, params, initial, from, now }: { inst
           when={formatDateTime(latest.at, zone)}
         />
       ) : null}
+      <StageTable series={series} unit={unit} factor={k} format={chart.format} />
       <div className="grid gap-4 lg:grid-cols-2">
         <SignalsList series={series} />
         <ReviewBox series={series} />
@@ -136,5 +137,32 @@ function MinimumWeightFigure({ series, common }: { series: InstrumentSeries; com
         />
       )}
     </ChartFigure>
+  );
+}
+
+/** The limits of each stage in figures, so they can be read and compared without the chart. */
+function StageTable({ series, unit, factor, format }: { series: InstrumentSeries; unit: string; factor: number; format: (v: number) => string }) {
+  const zone = series.instrument.timeZone;
+  return (
+    <details className="rounded-md border border-rule bg-card p-3 text-sm">
+      <summary className="cursor-pointer font-medium">Limits per stage ({unit})</summary>
+      <table className="mt-2 w-full" aria-label={`Limits per stage, ${series.type}`}>
+        <thead className="text-ink-soft">
+          <tr>{["Stage", "Baseline points", "Centre", "σ̂", "Control limits", "Warning limits"].map((h) => <th key={h} scope="col" className="px-2 py-1 text-left font-medium">{h}</th>)}</tr>
+        </thead>
+        <tbody>
+          {series.stages.map((s) => (
+            <tr key={s.index} className="border-t border-rule/60" data-stage={s.index}>
+              <td className="px-2 py-1">{formatDay(s.from, zone)} – {formatDay(s.to, zone)}</td>
+              <td className="num px-2 py-1">{s.baseline?.count ?? "fewer than 8"}</td>
+              <td className="num px-2 py-1">{s.baseline ? format(s.baseline.center * factor) : "—"}</td>
+              <td className="num px-2 py-1">{s.baseline ? format(s.baseline.sigma * factor) : "—"}</td>
+              <td className="num px-2 py-1">{s.limits ? `${format(s.limits.lcl * factor)} … ${format(s.limits.ucl * factor)}` : "—"}</td>
+              <td className="num px-2 py-1">{s.limits ? `${format(s.limits.lwl * factor)} … ${format(s.limits.uwl * factor)}` : "—"}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </details>
   );
 }
