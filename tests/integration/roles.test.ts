@@ -3,6 +3,11 @@ import { and, desc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "../../app/lib/db.server";
 import * as admin from "../../app/routes/admin";
+import * as auditPage from "../../app/routes/audit";
+import * as planNew from "../../app/routes/plans-new";
+import * as schedulePage from "../../app/routes/schedule";
+import * as trainingPage from "../../app/routes/training";
+import * as weightNew from "../../app/routes/weights-new";
 import * as checksDue from "../../app/routes/checks-due";
 import * as fleet from "../../app/routes/fleet";
 import * as instrumentDetail from "../../app/routes/instrument-detail";
@@ -154,5 +159,26 @@ describe("users, memberships and API tokens (admin)", () => {
   it.each([METROLOGIST, SITE_MANAGER, TECHNICIAN, ANALYST])("%s is refused", async (email) => {
     expect((await run(admin.loader, request("/admin", { cookie: cookies[email] }))).status).toBe(403);
     expect((await run(admin.action, request("/admin", { cookie: cookies[email], form: { intent: "create-token", userId: "1", name: "sneaky" } }))).status).toBe(403);
+  });
+});
+
+describe("programme pages (issue 6): plans, weights, training, schedule, audit trail", () => {
+  it("a metrologist may open the new-plan page; a technician is refused", async () => {
+    const path = `/instruments/${avpInstrumentId}/plans/new`;
+    expect((await run(planNew.loader, request(path, { cookie: cookies[METROLOGIST] }), { id: String(avpInstrumentId) })).status).toBe(200);
+    expect((await run(planNew.loader, request(path, { cookie: cookies[TECHNICIAN] }), { id: String(avpInstrumentId) })).status).toBe(403);
+  });
+  it("an admin may register a test weight; an analyst is refused", async () => {
+    expect((await run(weightNew.loader, request("/weights/new", { cookie: cookies[ADMIN] }))).status).toBe(200);
+    expect((await run(weightNew.loader, request("/weights/new", { cookie: cookies[ANALYST] }))).status).toBe(403);
+  });
+  it("a metrologist may record training; a site manager may only read it", async () => {
+    expect((await run(trainingPage.loader, request("/training", { cookie: cookies[SITE_MANAGER] }))).status).toBe(200);
+    expect((await run(trainingPage.action, request("/training", { cookie: cookies[SITE_MANAGER], form: { userId: "1", procedure: "sensitivity" } }))).status).toBe(403);
+  });
+  it("a site manager sees the schedule and the audit trail; a technician may not read the audit trail", async () => {
+    expect((await run(schedulePage.loader, request("/schedule", { cookie: cookies[SITE_MANAGER] }))).status).toBe(200);
+    expect((await run(auditPage.loader, request("/audit", { cookie: cookies[SITE_MANAGER] }))).status).toBe(200);
+    expect((await run(auditPage.loader, request("/audit", { cookie: cookies[TECHNICIAN] }))).status).toBe(403);
   });
 });
