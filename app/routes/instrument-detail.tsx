@@ -124,14 +124,14 @@ export default function InstrumentDetail({ loaderData, actionData }: Route.Compo
           </Caution>
         </aside>
         <div className="grid min-w-0 content-start gap-6">
-          <section aria-labelledby="drift-heading" className="grid gap-4">
+          <section aria-labelledby="drift-heading" className="grid min-w-0 gap-4">
             <div className="flex flex-wrap items-end justify-between gap-3">
               <h2 id="drift-heading" className="text-lg font-semibold">Drift study</h2>
               <RangeControl params={view} />
             </div>
             {series.length === 0 ? <p className="rounded-md border border-dashed border-rule bg-card p-6 text-sm text-ink-soft">No checks yet. Charts appear once checks are recorded; limits need at least 8 checks after the latest reset.</p> : null}
             {series.map((s) => (
-              <section key={s.type} aria-label={`${TYPE_LABELS[s.type]} panel`} className="grid gap-3">
+              <section key={s.type} aria-label={`${TYPE_LABELS[s.type]} panel`} className="grid min-w-0 gap-3">
                 <h3 className="text-base font-semibold">{TYPE_LABELS[s.type]}</h3>
                 <PanelBoundary title={`${TYPE_LABELS[s.type]} charts`}>
                   <SeriesPanel instrumentId={i.id} params={{ ...view, type: s.type }} initial={s} from={from} now={now} />

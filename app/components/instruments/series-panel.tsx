@@ -32,7 +32,7 @@ export function SeriesPanel({ instrumentId, params, initial, from, now }: { inst
   const latest = series.points.at(-1)!;
   const common = { xDomain: domain, formatTick: tick, formatValue: chart.format, events: chart.events, stages: chart.stages };
   return (
-    <div className="grid gap-4" aria-busy={isFetching}>
+    <div className="grid min-w-0 gap-4" aria-busy={isFetching}>
       <ForecastLine series={series} now={now} />
       <ChartFigure
         title={`${TITLES[series.type]} (${unit}), ${series.instrument.assetTag}`}
