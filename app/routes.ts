@@ -20,6 +20,10 @@ export default [
     route("export/checks.csv", "routes/api/export-checks.ts"),
     route("analyze", "routes/api/analyze.ts"),
     route("checks", "routes/api/checks.ts"),
+    route("imports", "routes/api/imports.ts"),
+    route("imports/:id", "routes/api/imports-status.ts"),
+    route("imports/:id/start", "routes/api/imports-start.ts"),
+    route("imports/:id/report.csv", "routes/api/imports-report.ts"),
   ]),
   layout("routes/app-layout.tsx", [
     index("routes/home.tsx"),
@@ -46,5 +50,7 @@ export default [
     route("checks/:id/correct", "routes/audit-correct-check.tsx"),
     route("admin", "routes/admin.tsx"),
     route("outbox", "routes/outbox.tsx"),
+    route("imports", "routes/imports.tsx"),
+    route("imports/:id", "routes/imports-detail.tsx"),
   ]),
 ] satisfies RouteConfig;

@@ -16,12 +16,13 @@ export interface RowProblem {
 export interface ColumnLayout {
   labels: string[];
   index: Partial<Record<ImportField, number>>;
+  entries: [Exclude<ImportField, "readings">, number][];
   readings: number[];
   delimiter: Delimiter;
 }
 
 export type RowValues = Partial<Record<Exclude<ImportField, "readings">, string>>;
-export type ReadRow = { kind: "empty" } | { kind: "problems"; problems: RowProblem[] } | { kind: "row"; values: RowValues; readingCells: string[]; raw: string };
+export type ReadRow = { kind: "empty" } | { kind: "problems"; problems: RowProblem[] } | { kind: "row"; values: RowValues; readingCells: string[]; fields: string[] };
 
 export function columnLayout(labels: string[], mapping: ColumnMapping, delimiter: Delimiter): ColumnLayout {
   const index: ColumnLayout["index"] = {};
@@ -31,7 +32,7 @@ export function columnLayout(labels: string[], mapping: ColumnMapping, delimiter
     if (field === "readings") readings.push(i);
     else if (field) index[field] = i;
   });
-  return { labels, index, readings, delimiter };
+  return { labels, index, entries: Object.entries(index) as ColumnLayout["entries"], readings, delimiter };
 }
 
 /** Physical lines a record covers: one, plus the line breaks inside its quoted cells. */
@@ -55,44 +56,39 @@ const fmt = (n: number) => n.toLocaleString("en-GB");
 export function readRow(fields: string[], layout: ColumnLayout, line: number): ReadRow {
   const marker = readMarker(fields);
   if (marker) {
+    const span = marker.newlines ? `Lines ${line} to ${line + marker.newlines} were read as one record (a quote opened on line ${line} runs on). ` : "";
     const reason =
       marker.kind === "too_long"
-        ? `The line is ${fmt(marker.length)} characters long; Tareline reads lines of up to ${fmt(MAX_RECORD_CHARS)} characters.`
-        : "The quoting on this line is broken: a quoted value must end with a quote followed by the delimiter or the end of the line (write a quote inside a value as two quotes).";
+        ? `${span}The line is ${fmt(marker.length)} characters long; Tareline reads lines of up to ${fmt(MAX_RECORD_CHARS)} characters.`
+        : `${span}The quoting is broken: a quoted value must end with a quote followed by the delimiter or the end of the line (write a quote inside a value as two quotes).`;
     return { kind: "problems", problems: [{ line, column: null, reason, raw: null }] };
   }
   if (fields.every((f) => f.trim() === "")) return { kind: "empty" };
-  const raw = rawText(fields, layout.delimiter);
-  const problem = (column: string | null, reason: string): RowProblem => ({ line, column, reason, raw });
   const problems: RowProblem[] = [];
+  const problem = (column: string | null, reason: string) => problems.push({ line, column, reason, raw: rawText(fields, layout.delimiter) });
   const width = layout.labels.length;
   if (fields.length > width && fields.slice(width).some((f) => f.trim() !== "")) {
     const hint = layout.delimiter === "," ? " A decimal comma in a comma-separated file must be inside quotes, or the file saved with ; between columns." : "";
-    problems.push(problem(null, `The line has ${fields.length} values but the header has ${width} columns.${hint}`));
+    problem(null, `The line has ${fields.length} values but the header has ${width} columns.${hint}`);
   }
-  const cell = (i: number) => (i < fields.length ? fields[i].trim() : undefined);
+  const missing = (i: number) => problem(layout.labels[i], `Column "${layout.labels[i]}" is missing on this line (it has ${fields.length} of ${width} values).`);
   const values: RowValues = {};
-  for (const [field, i] of Object.entries(layout.index) as [Exclude<ImportField, "readings">, number][]) {
-    const value = cell(i);
-    if (value === undefined) problems.push(problem(layout.labels[i], `Column "${layout.labels[i]}" is missing on this line (it has ${fields.length} of ${width} values).`));
-    else values[field] = value;
+  for (const [field, i] of layout.entries) {
+    if (i < fields.length) values[field] = fields[i].trim();
+    else missing(i);
   }
   const readingCells: string[] = [];
   for (const i of layout.readings) {
-    const value = cell(i);
-    if (value === undefined) problems.push(problem(layout.labels[i], `Column "${layout.labels[i]}" is missing on this line (it has ${fields.length} of ${width} values).`));
-    else readingCells.push(value);
+    if (i < fields.length) readingCells.push(fields[i].trim());
+    else missing(i);
   }
-  fields.forEach((f, i) => {
-    if (f.length > MAX_CELL_CHARS) problems.push(problem(layout.labels[i] ?? null, `The value is ${fmt(f.length)} characters long; a cell holds at most ${fmt(MAX_CELL_CHARS)}.`));
-  });
+  for (let i = 0; i < fields.length; i++) {
+    if (fields[i].length > MAX_CELL_CHARS) problem(layout.labels[i] ?? null, `The value is ${fmt(fields[i].length)} characters long; a cell holds at most ${fmt(MAX_CELL_CHARS)}.`);
+  }
   if (problems.length) return { kind: "problems", problems };
   for (const field of REQUIRED_FIELDS) {
     const empty = field === "readings" ? readingCells.every((c) => c === "") : !values[field as Exclude<ImportField, "readings">];
-    if (empty) {
-      const column = field === "readings" ? layout.labels[layout.readings[0]] : layout.labels[layout.index[field] ?? 0];
-      problems.push(problem(column, `${FIELD_LABELS[field]} is empty.`));
-    }
+    if (empty) problem(field === "readings" ? layout.labels[layout.readings[0]] : layout.labels[layout.index[field] ?? 0], `${FIELD_LABELS[field]} is empty.`);
   }
-  return problems.length ? { kind: "problems", problems } : { kind: "row", values, readingCells, raw };
+  return problems.length ? { kind: "problems", problems } : { kind: "row", values, readingCells, fields };
 }

@@ -20,6 +20,7 @@ export async function loader({ request }: Route.LoaderArgs) {
       schedule: !can(viewer, "record_check"),
       audit: can(viewer, "view_audit"),
       exports: can(viewer, "export_csv"),
+      imports: can(viewer, "import_csv"),
       admin: isAdmin(viewer),
       outbox: Boolean(env().OUTBOX_DIR),
     },
@@ -65,6 +66,7 @@ export default function AppLayout({ loaderData }: Route.ComponentProps) {
           {nav.schedule ? <li><NavLink to="/schedule" className={linkClass}>Schedule</NavLink></li> : null}
           <li><NavLink to="/weights" className={linkClass}>Test weights</NavLink></li>
           <li><NavLink to="/training" className={linkClass}>Training</NavLink></li>
+          {nav.imports ? <li><NavLink to="/imports" className={linkClass}>Imports</NavLink></li> : null}
           {nav.exports ? <li><NavLink to="/export" className={linkClass}>Exports</NavLink></li> : null}
           {nav.audit ? <li><NavLink to="/audit" className={linkClass}>Audit trail</NavLink></li> : null}
           {nav.admin ? <li><NavLink to="/admin" className={linkClass}>Admin</NavLink></li> : null}
