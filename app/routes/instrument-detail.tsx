@@ -97,7 +97,7 @@ export default function InstrumentDetail({ loaderData, actionData }: Route.Compo
       {actionData?.done ? <p role="status" className="mb-4 rounded-md border border-rule bg-card p-3 text-sm">{actionData.done}</p> : null}
       {actionData?.errors?.length ? <p role="alert" className="mb-4 rounded-md border border-out bg-card p-3 text-sm text-out">{actionData.errors.join(" ")}</p> : null}
       {i.status === "out_of_service" ? <ReleasePanel review={review} canRelease={canReview} errors={[]} /> : null}
-      <div className="grid gap-6 xl:grid-cols-[minmax(0,20rem)_1fr]">
+      <div className="grid gap-6 xl:grid-cols-[20rem_minmax(0,1fr)]">
         <aside className="grid content-start gap-4">
           <section aria-labelledby="props-heading" className="rounded-md border border-rule bg-card p-4">
             <h2 id="props-heading" className="mb-3 font-semibold">Properties</h2>

@@ -28,10 +28,10 @@ describe("the metrologist's drift study", () => {
     const forecast = page.getByLabel("Forecast").first();
     await expect(forecast.textContent()).resolves.toMatch(/Forecast to tolerance\s*\d{2} \w{3,4} \d{4} \(in \d+ days\)/);
     const panel = page.getByRole("region", { name: "Sensitivity panel" });
-    const marker = panel.locator("svg path.fill-signal").last();
+    const marker = panel.locator("figure").first().locator("[role=img] svg path.fill-signal").last();
     await marker.scrollIntoViewIfNeeded();
     await marker.hover({ force: true });
-    const tooltip = page.locator(".visx-tooltip").first();
+    const tooltip = page.locator(".visx-tooltip").filter({ hasText: "By " });
     await tooltip.waitFor();
     await expect(tooltip.textContent()).resolves.toMatch(/in a row|beyond|CUSUM|EWMA|of three|of five/);
     await screenshot(page, "drift-study-AVP-AB-01");
@@ -94,9 +94,9 @@ describe("the analyst's export", () => {
     await page.getByLabel("Instrument (asset tag)").fill("AVP-PB-02");
     await page.getByLabel("Check type").selectOption("sensitivity");
     await page.getByRole("button", { name: "Count matching checks" }).click();
-    const status = page.getByRole("status");
-    await status.filter({ hasText: "checks match" }).waitFor();
-    const count = Number(((await status.textContent()) ?? "").replace(/[^\d]/g, ""));
+    const status = page.getByRole("status").filter({ hasText: "checks match" });
+    await status.waitFor();
+    const count = Number(((await status.locator("strong").textContent()) ?? "").replace(/[^\d]/g, ""));
     await screenshot(page, "export-analyst");
     const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "Download CSV" }).click()]);
     expect(download.suggestedFilename()).toBe("checks_all-sites_AVP-PB-02_sensitivity.csv");

@@ -143,6 +143,8 @@ function MinimumWeightFigure({ series, common }: { series: InstrumentSeries; com
 /** The limits of each stage in figures, so they can be read and compared without the chart. */
 function StageTable({ series, unit, factor, format }: { series: InstrumentSeries; unit: string; factor: number; format: (v: number) => string }) {
   const zone = series.instrument.timeZone;
+  // Centre and σ̂ are estimates, finer than any one reading: two more digits than d.
+  const fine = (v: number) => v.toFixed(Math.max(0, (format(v).split(".")[1]?.length ?? 0) + 2));
   return (
     <details className="rounded-md border border-rule bg-card p-3 text-sm">
       <summary className="cursor-pointer font-medium">Limits per stage ({unit})</summary>
@@ -155,8 +157,8 @@ function StageTable({ series, unit, factor, format }: { series: InstrumentSeries
             <tr key={s.index} className="border-t border-rule/60" data-stage={s.index}>
               <td className="px-2 py-1">{formatDay(s.from, zone)} – {formatDay(s.to, zone)}</td>
               <td className="num px-2 py-1">{s.baseline?.count ?? "fewer than 8"}</td>
-              <td className="num px-2 py-1">{s.baseline ? format(s.baseline.center * factor) : "—"}</td>
-              <td className="num px-2 py-1">{s.baseline ? format(s.baseline.sigma * factor) : "—"}</td>
+              <td className="num px-2 py-1">{s.baseline ? fine(s.baseline.center * factor) : "—"}</td>
+              <td className="num px-2 py-1">{s.baseline ? fine(s.baseline.sigma * factor) : "—"}</td>
               <td className="num px-2 py-1">{s.limits ? `${format(s.limits.lcl * factor)} … ${format(s.limits.ucl * factor)}` : "—"}</td>
               <td className="num px-2 py-1">{s.limits ? `${format(s.limits.lwl * factor)} … ${format(s.limits.uwl * factor)}` : "—"}</td>
             </tr>
