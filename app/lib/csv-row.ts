@@ -67,7 +67,8 @@ export function readRow(fields: string[], layout: ColumnLayout, line: number): R
   const problems: RowProblem[] = [];
   const problem = (column: string | null, reason: string) => problems.push({ line, column, reason, raw: rawText(fields, layout.delimiter) });
   const width = layout.labels.length;
-  if (fields.length > width && fields.slice(width).some((f) => f.trim() !== "")) {
+  // Refused even when the extra values are empty: a value split in two (a decimal comma) shifts the rest of the line.
+  if (fields.length > width) {
     const hint = layout.delimiter === "," ? " A decimal comma in a comma-separated file must be inside quotes, or the file saved with ; between columns." : "";
     problem(null, `The line has ${fields.length} values but the header has ${width} columns.${hint}`);
   }

@@ -14,6 +14,7 @@ import * as instrumentDetail from "../../app/routes/instrument-detail";
 import * as instrumentEdit from "../../app/routes/instrument-edit";
 import * as instrumentNew from "../../app/routes/instrument-new";
 import * as instruments from "../../app/routes/instruments";
+import * as importsPage from "../../app/routes/imports";
 import { auditEvents, instruments as instrumentsTable, sites } from "../../db/schema";
 import { cookieFor, request, run } from "../helpers/routes";
 import { ADMIN, ANALYST, METROLOGIST, SITE_MANAGER, TECHNICIAN } from "../helpers/people";
@@ -180,5 +181,12 @@ describe("programme pages (issue 6): plans, weights, training, schedule, audit t
     expect((await run(schedulePage.loader, request("/schedule", { cookie: cookies[SITE_MANAGER] }))).status).toBe(200);
     expect((await run(auditPage.loader, request("/audit", { cookie: cookies[SITE_MANAGER] }))).status).toBe(200);
     expect((await run(auditPage.loader, request("/audit", { cookie: cookies[TECHNICIAN] }))).status).toBe(403);
+  });
+});
+
+describe("CSV import (admin, metrologist)", () => {
+  it("a metrologist opens the imports page; a technician is refused", async () => {
+    expect((await run(importsPage.loader, request("/imports", { cookie: cookies[METROLOGIST] }))).status).toBe(200);
+    expect((await run(importsPage.loader, request("/imports", { cookie: cookies[TECHNICIAN] }))).status).toBe(403);
   });
 });
