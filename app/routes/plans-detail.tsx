@@ -143,8 +143,8 @@ export default function PlanDetail({ loaderData, actionData }: Route.ComponentPr
       </div>
       <div className="mt-6">
         {risk ? (
-          <RiskPanel risk={risk} title={`Risk assessment by ${risk.assessedBy} on ${risk.assessedAt.slice(0, 10)}`}>
-            {risk.intervalReason ? <p className="mt-2">Why {risk.chosenIntervalDays} days: {risk.intervalReason}</p> : null}
+          <RiskPanel risk={risk} label="Stored risk assessment" title={`Risk assessment by ${risk.assessedBy} on ${risk.assessedAt.slice(0, 10)}`}>
+            {risk.intervalReason ? <p className="mt-2">Why {risk.chosenIntervalDays === 1 ? "every day" : `every ${risk.chosenIntervalDays} days`}: {risk.intervalReason}</p> : null}
             {canEdit && suggested && suggested !== plan.intervalDays ? (
               <Form method="post" className="mt-3">
                 <input type="hidden" name="intent" value="apply-suggestion" />

@@ -29,7 +29,7 @@ describe("the check programme", () => {
     await page.goto(`${baseUrl}/instruments/new`);
     await page.getByLabel("Asset tag").fill(TAG);
     await page.getByLabel("Kind").selectOption("analytical_balance");
-    await page.locator("main").getByLabel("Site", { exact: true }).selectOption({ label: "AVP · Averly Park laboratory" });
+    await page.locator('select[name="siteId"]').selectOption({ label: "AVP · Averly Park laboratory" });
     await page.getByLabel("Unit of Max, d, e").selectOption("g");
     await page.getByLabel("Max (capacity)").fill("220");
     await page.getByLabel("d (readability)").fill("0.0001");
@@ -49,7 +49,7 @@ describe("the check programme", () => {
     expect(await page.getByLabel("Check every (days)").inputValue()).toBe("1");
     await page.getByLabel("Tolerance basis").selectOption("absolute");
     await page.getByLabel("Tolerance T (g)").fill("0.0003");
-    await page.getByLabel(/^AVP-W-04 /).check();
+    await page.getByRole("checkbox", { name: /^AVP-W-04 / }).check();
     await page.getByRole("button", { name: "Create plan" }).click();
     const refusal = page.getByRole("alert").filter({ hasText: "may not serve this plan" });
     await refusal.waitFor();
@@ -57,8 +57,8 @@ describe("the check programme", () => {
     expect(await refusal.textContent()).toMatch(/AVP-W-04 may not serve this plan: The E2 class mpe \(0\.16 mg\) is more than one third of the tolerance \(0\.1 mg\)/);
     await screenshot(page, "programme-plan-unsuitable-weight");
 
-    await page.getByLabel(/^AVP-W-04 /).uncheck();
-    await page.getByLabel(/^AVP-W-03 /).check();
+    await page.getByRole("checkbox", { name: /^AVP-W-04 / }).uncheck();
+    await page.getByRole("checkbox", { name: /^AVP-W-03 / }).check();
     await page.getByLabel("Why this interval (kept with the plan)").fill("Assay weighings for release; daily as suggested.");
     await page.getByRole("button", { name: "Create plan" }).click();
     await page.getByRole("status").filter({ hasText: "Plan saved" }).waitFor();
@@ -66,7 +66,7 @@ describe("the check programme", () => {
     const weights = await page.getByRole("region", { name: "Test weights" }).textContent();
     expect(weights).toContain("AVP-W-03");
     expect(weights).toContain("Yes");
-    expect(await page.getByRole("region", { name: "Risk assessment" }).textContent()).toContain("Why 1 days: Assay weighings for release");
+    expect(await page.getByRole("region", { name: "Stored risk assessment" }).textContent()).toContain("Why every day: Assay weighings for release");
     await screenshot(page, "programme-plan-saved");
     await page.close();
   });

@@ -4,9 +4,9 @@ import { CHECK_TYPE_LABELS } from "./due-badge";
 const BAND_WORDS = { high: "High risk", medium: "Medium risk", low: "Low risk" } as const;
 
 /** The risk model's suggestion and its reasoning, in words; it never changes the plan by itself. */
-export function RiskPanel({ risk, title = "Suggested by the risk assessment", children }: { risk: RiskAssessment; title?: string; children?: React.ReactNode }) {
+export function RiskPanel({ risk, title = "Suggested by the risk assessment", label = "Risk assessment", children }: { risk: RiskAssessment; title?: string; label?: string; children?: React.ReactNode }) {
   return (
-    <section aria-label="Risk assessment" className="rounded-md border border-rule bg-paper-deep/50 p-4 text-sm">
+    <section aria-label={label} className="rounded-md border border-rule bg-paper-deep/50 p-4 text-sm">
       <h3 className="font-semibold">{title}: {BAND_WORDS[risk.band]} <span className="num font-normal text-ink-soft">(score {risk.score} of 9)</span></h3>
       <ul className="mt-2 flex flex-wrap gap-x-6 gap-y-1">
         {Object.entries(risk.suggestedIntervals).map(([type, days]) => (
