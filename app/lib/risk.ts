@@ -64,9 +64,9 @@ function minimumWeightTightness(input: RiskInput, reasons: string[]): { score: n
   // USP <41>: the lowest minimum weight any balance of readability d can show is 2000 × 0.41 d = 820 d.
   const measured = input.measuredMinimumWeightG;
   const mMin = measured ?? minimumWeight(ROUNDING_SD_FACTOR * input.readabilityG);
-  const source = measured === null ? `the best a balance with d = ${mg(input.readabilityG)} can do (820 d, USP <41>; no repeatability check yet)` : "from the latest repeatability check";
+  const source = measured === null ? `the best a balance with d = ${mg(input.readabilityG)} can do, 820 d by USP <41>, as no repeatability check is recorded yet` : "from the latest repeatability check";
   const margin = input.smallestNetWeightG / (input.safetyFactor * mMin);
-  const words = `The smallest net weight ${mg(input.smallestNetWeightG)} is ${round(margin)} × the safety factor ${input.safetyFactor} × the minimum weight ${mg(mMin)} ${source}`;
+  const words = `The smallest net weight ${mg(input.smallestNetWeightG)} is ${round(margin)} × (safety factor ${input.safetyFactor} × minimum weight ${mg(mMin)}, ${source})`;
   if (margin < 1) {
     reasons.push(`${words}: the instrument cannot weigh it to 0.10 %. Use a finer instrument or a larger quantity; more frequent checks do not fix this.`);
     return { score: 3, unfit: true };

@@ -7,6 +7,7 @@ import { fleetFor, ROOMS } from "./instruments";
 import { DEMO_PEOPLE, DEMO_SITES } from "./people";
 import { REFERENCE_DATE, SEED, seededRandom } from "./random";
 import { ECCENTRICITY_STORY, seedHistory } from "./history";
+import { seedProgramme } from "./programme";
 import { weightsFor } from "./weights";
 
 const day = 86_400_000;
@@ -81,6 +82,7 @@ export async function seedDemo(db: Database): Promise<{ created: boolean; instru
       );
     }
     await seedHistory(tx, random);
+    await seedProgramme(tx);
     return { created: true, instruments: instrumentCount };
   });
 }

@@ -31,9 +31,9 @@ describe("training records", () => {
   });
 
   it("a metrologist records a custom procedure, audited; a site manager and a technician may not", async () => {
-    const form = { userId: String(tomasId), procedure: "custom", customProcedure: "linearity", trainedOn: "2026-11-01", trainerName: "Milo Ferrante", expiresOn: "2027-11-01", evidence: "Observed practical." };
+    const form = { userId: String(tomasId), procedure: "custom", customProcedure: "minimum weight determination", trainedOn: "2026-11-01", trainerName: "Milo Ferrante", expiresOn: "2027-11-01", evidence: "Observed practical." };
     expect((await run(training.action, request("/training", { cookie: cookies[METROLOGIST], form }))).status).toBe(200);
-    const [row] = await db().select().from(trainingRecords).where(and(eq(trainingRecords.userId, tomasId), eq(trainingRecords.procedure, "linearity")));
+    const [row] = await db().select().from(trainingRecords).where(and(eq(trainingRecords.userId, tomasId), eq(trainingRecords.procedure, "minimum weight determination")));
     expect(row).toMatchObject({ trainerName: "Milo Ferrante", expiresOn: "2027-11-01" });
     const [audit] = await db().select().from(auditEvents).where(and(eq(auditEvents.entityType, "training"), eq(auditEvents.entityId, String(row.id))));
     expect(audit.action).toBe("training.record");

@@ -1,4 +1,5 @@
 import type { RiskAssessment } from "~/lib/risk";
+import { CHECK_TYPES } from "../../../db/schema/enums";
 import { CHECK_TYPE_LABELS } from "./due-badge";
 
 const BAND_WORDS = { high: "High risk", medium: "Medium risk", low: "Low risk" } as const;
@@ -9,8 +10,8 @@ export function RiskPanel({ risk, title = "Suggested by the risk assessment", la
     <section aria-label={label} className="rounded-md border border-rule bg-paper-deep/50 p-4 text-sm">
       <h3 className="font-semibold">{title}: {BAND_WORDS[risk.band]} <span className="num font-normal text-ink-soft">(score {risk.score} of 9)</span></h3>
       <ul className="mt-2 flex flex-wrap gap-x-6 gap-y-1">
-        {Object.entries(risk.suggestedIntervals).map(([type, days]) => (
-          <li key={type}><span className="font-medium">{CHECK_TYPE_LABELS[type as keyof typeof CHECK_TYPE_LABELS]}</span> every <span className="num">{days === 1 ? "day" : `${days} days`}</span></li>
+        {CHECK_TYPES.filter((type) => risk.suggestedIntervals[type]).map((type) => (
+          <li key={type}><span className="font-medium">{CHECK_TYPE_LABELS[type]}</span> every <span className="num">{risk.suggestedIntervals[type] === 1 ? "day" : `${risk.suggestedIntervals[type]} days`}</span></li>
         ))}
       </ul>
       <ol className="mt-3 list-decimal space-y-1 pl-5 text-ink-soft">
