@@ -1,4 +1,4 @@
-// Tareline's risk model for routine checks (docs/decisions/004-risk-model-for-check-plans.md): the consequence of a
+// Tareline's risk model for routine checks (docs/decisions/006-risk-model-for-check-plans.md): the consequence of a
 // wrong result × how tight the process is against what the instrument can do. Pure; it suggests, it never applies.
 import type { AccuracyClass } from "./stats/oiml-r76";
 import { inServiceMpe } from "./stats/oiml-r76";
