@@ -46,13 +46,18 @@ describe("the metrologist's drift study", () => {
     await panel.getByText("Limits per stage").click();
     const stageRow = panel.locator('tr[data-stage="0"]');
     const before = await stageRow.textContent();
-    const firstRow = page.getByRole("region", { name: "Checks" }).locator("tbody tr").first();
-    await firstRow.getByPlaceholder("Reason").fill("Draught shield left open during the reading");
-    await firstRow.getByRole("button", { name: "Exclude" }).click();
+    // The oldest checks open stage 0's baseline; excluding the one farthest from zero must move its centre.
+    const rows = page.getByRole("region", { name: "Checks" }).locator("tbody tr");
+    const results = (await rows.locator("td:nth-child(3)").allTextContents()).map((t) => Math.abs(Number.parseFloat(t)));
+    const target = rows.nth(results.indexOf(Math.max(...results)));
+    const rings = panel.locator("figure").first().locator("[role=img] svg circle.stroke-excluded");
+    const ringsBefore = await rings.count();
+    await target.getByPlaceholder("Reason").fill("Draught shield left open during the reading");
+    await target.getByRole("button", { name: "Exclude" }).click();
     await page.getByRole("status").filter({ hasText: "Check excluded" }).waitFor();
-    await panel.getByText("Limits per stage").click();
     await expect.poll(() => stageRow.textContent()).not.toBe(before);
-    expect(await page.getByRole("region", { name: "Checks" }).locator("tbody tr").first().textContent()).toContain("Excluded");
+    expect(await rings.count()).toBe(ringsBefore + 1);
+    expect(await target.textContent()).toContain("Excluded");
     await page.close();
   });
 });
@@ -62,8 +67,10 @@ describe("the site manager's fleet", () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
     await signIn(page, baseUrl, "Sana Okonkwo-Hale");
     await page.goto(`${baseUrl}/fleet?sort=assetTag`);
+    await page.waitForLoadState("networkidle");
     const header = page.getByRole("columnheader", { name: /Forecast to tolerance/ });
     await header.getByRole("link").click();
+    await page.waitForURL(/sort=forecast/);
     await expect.poll(() => header.getAttribute("aria-sort")).toBe("ascending");
     const first = await page.locator("table tbody tr").nth(3).locator("td").first().textContent();
     const tags = await page.locator("table:has(caption) tbody tr td:first-child a").allTextContents();
@@ -94,6 +101,8 @@ describe("the analyst's export", () => {
     await page.getByLabel("Instrument (asset tag)").fill("AVP-PB-02");
     await page.getByLabel("Check type").selectOption("sensitivity");
     await page.getByRole("button", { name: "Count matching checks" }).click();
+    await page.waitForURL(/instrument=AVP-PB-02/);
+    await page.waitForLoadState("networkidle");
     const status = page.getByRole("status").filter({ hasText: "checks match" });
     await status.waitFor();
     const count = Number(((await status.locator("strong").textContent()) ?? "").replace(/[^\d]/g, ""));
