@@ -33,13 +33,20 @@ export async function loader({ request }: Route.LoaderArgs) {
   };
 }
 
+const OPEN: Record<string, (id: string) => string> = {
+  check: (id) => `/print/checks/${id}`,
+  plan: (id) => `/plans/${id}`,
+  weight: (id) => `/weights/${id}`,
+  instrument: (id) => `/instruments/${id}`,
+};
+
 export default function Audit({ loaderData }: Route.ComponentProps) {
   const { filter, entities, actors, rows, total, pages } = loaderData;
   const [search] = useSearchParams();
   const pageLink = (page: number) => { const p = new URLSearchParams(search); p.set("page", String(page)); return `?${p}`; };
   return (
     <>
-      <PageHeader title="Audit trail" subtitle={`${total} events. Append-only and hash-chained: every change with who, when, what, before and after.`} action={<a href={`/api/v1/audit.csv?${new URLSearchParams([...search.entries()].filter(([k]) => k !== "page"))}`} className="text-sm text-accent underline">Download CSV</a>} />
+      <PageHeader title="Audit trail" subtitle={`${total} ${total === 1 ? "event" : "events"}. Append-only and hash-chained: every change with who, when, what, before and after.`} action={<a href={`/api/v1/audit.csv?${new URLSearchParams([...search.entries()].filter(([k]) => k !== "page"))}`} className="text-sm text-accent underline">Download CSV</a>} />
       <Form method="get" className="mb-4 flex flex-wrap items-end gap-3 text-sm" aria-label="Filter the audit trail">
         <label className="flex flex-col gap-1"><span className="font-medium">Entity</span>
           <select name="entity" defaultValue={filter.entity ?? ""} className="rounded-md border border-rule bg-card px-2 py-1.5"><option value="">Any</option>{entities.map((e) => <option key={e} value={e}>{e}</option>)}</select>
@@ -65,7 +72,10 @@ export default function Audit({ loaderData }: Route.ComponentProps) {
                 <td className="num whitespace-nowrap px-3 py-2">{r.local ?? "—"}</td>
                 <td className="px-3 py-2">{r.actor}</td>
                 <td className="px-3 py-2 font-medium">{r.action}</td>
-                <td className="px-3 py-2"><Link to={`?entity=${r.entityType}${r.entityId ? `&entityId=${encodeURIComponent(r.entityId)}` : ""}`} className="text-accent-deep underline">{r.entity}</Link></td>
+                <td className="px-3 py-2">
+                  <Link to={`?entity=${r.entityType}${r.entityId ? `&entityId=${encodeURIComponent(r.entityId)}` : ""}`} className="text-accent-deep underline" title="Only this entity's events">{r.entity}</Link>
+                  {r.entityId && OPEN[r.entityType] ? <Link to={OPEN[r.entityType](r.entityId)} className="ml-2 text-xs text-accent underline">open</Link> : null}
+                </td>
                 <td className="px-3 py-2">
                   {r.changes.length === 0 ? <span className="text-ink-faint">—</span> : (
                     <details><summary className="cursor-pointer">{r.changes.length} field{r.changes.length === 1 ? "" : "s"}: {r.changes.slice(0, 3).map((c) => c.field).join(", ")}{r.changes.length > 3 ? "…" : ""}</summary>
