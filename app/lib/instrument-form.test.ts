@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { classMismatch, fittingClasses } from "./instrument-rules";
+import { ACCURACY_CLASSES, classConsistencyWarning } from "./stats/oiml-r76";
+
+const fittingClasses = (e: number, max: number) => ACCURACY_CLASSES.filter((c) => classConsistencyWarning(c, e, max) === null);
 import { InstrumentFormSchema, instrumentValues } from "./instrument-form";
 
 const base = {
@@ -31,12 +33,12 @@ describe("OIML R 76-1:2006 Table 3 class bands (REFERENCE.md §2, S: scan of the
     ["IIII", 1, 500, false], // class IIII needs e ≥ 5 g
   ];
   it.each(cases)("class %s, e = %s g, Max = %s g → fits %s", (cls, e, max, fits) => {
-    expect(classMismatch(cls as "I", e, max) === null).toBe(fits);
+    expect(classConsistencyWarning(cls as "I", e, max) === null).toBe(fits);
   });
 
   it("names the band it violated", () => {
-    expect(classMismatch("I", 0.001, 40)).toMatch(/n ≥ 50,000/);
-    expect(classMismatch("IIII", 1, 500)).toMatch(/e ≥ 5 g/);
+    expect(classConsistencyWarning("I", 0.001, 40)).toMatch(/below the 50\u2009000 that OIML R 76 requires for class I/);
+    expect(classConsistencyWarning("IIII", 1, 500)).toMatch(/at least 5 g for class IIII/);
   });
 
   it("a 6 kg scale with e = 1 g (n = 6 000) fits class II (e ≥ 0.1 g, n ≥ 5 000) and class III", () => {
@@ -63,7 +65,7 @@ describe("instrument form", () => {
     [{ verificationInterval: "300" }, "verificationInterval", /e must not exceed Max/],
     [{ capacity: "abc" }, "capacity", /must be a number/],
     [{ capacity: "-5" }, "capacity", /greater than zero/],
-    [{ accuracyClass: "I", capacity: "40" }, "accuracyClass", /n ≥ 50,000/],
+    [{ accuracyClass: "I", capacity: "40" }, "accuracyClass", /below the 50\u2009000 that OIML R 76 requires/],
     [{ smallestNetWeight: "500" }, "smallestNetWeight", /cannot exceed Max/],
     [{ assetTag: "has space" }, "assetTag", /letters, digits/],
   ])("refuses %o on %s", (patch, field, message) => {

@@ -1,7 +1,7 @@
 // The instrument register's form: one schema for the browser (Conform) and the action.
 import { z } from "zod";
 import { ACCURACY_CLASSES, INSTRUMENT_KINDS, MASS_UNITS } from "../../db/schema/enums";
-import { classMismatch } from "./instrument-rules";
+import { classConsistencyWarning } from "./stats/oiml-r76";
 import { isDecimal, toGrams } from "./units";
 
 const positiveDecimal = (label: string) =>
@@ -38,9 +38,9 @@ export const InstrumentFormSchema = z
     if (d > e) ctx.addIssue({ code: "custom", path: ["readability"], message: "d must not exceed e (the verification interval)." });
     if (e > max) ctx.addIssue({ code: "custom", path: ["verificationInterval"], message: "e must not exceed Max." });
     if (form.accuracyClass !== LEGAL_CLASS_NONE) {
-      const mismatch = classMismatch(form.accuracyClass, Number(toGrams(form.verificationInterval, form.unit)), Number(toGrams(form.capacity, form.unit)));
+      const mismatch = classConsistencyWarning(form.accuracyClass, Number(toGrams(form.verificationInterval, form.unit)), Number(toGrams(form.capacity, form.unit)));
       if (mismatch) {
-        ctx.addIssue({ code: "custom", path: ["accuracyClass"], message: `${mismatch} Pick the class on the instrument's plate, or "Not a legal-metrology instrument".` });
+        ctx.addIssue({ code: "custom", path: ["accuracyClass"], message: `${mismatch} Or choose "Not a legal-metrology instrument".` });
       }
     }
     if (form.smallestNetWeight && isDecimal(form.smallestNetWeight)) {
