@@ -11,6 +11,8 @@ export interface AnalyzeSeriesInput {
   values: readonly number[];
   /** ISO 8601 dates or date-times with an offset, same length, not decreasing; without them the trend is per point. */
   times?: readonly string[];
+  /** The same times as epoch milliseconds (UTC), for bulk callers that skip ISO parsing; give `times` or `timesMs`, not both. */
+  timesMs?: ArrayLike<number>;
   /** Readability d: σ̂ is never taken below 0.41·d. */
   resolution?: number;
   baseline?: BaselineSpec;

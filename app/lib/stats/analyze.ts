@@ -1,25 +1,26 @@
-import type { AnalyzedPoint, AnalyzeSeriesInput, PointSignalId, SeriesAnalysis, SeriesSignal } from "./analyze-types";
+import type { AnalyzedPoint, AnalyzeSeriesInput, PointSignalId, SeriesAnalysis } from "./analyze-types";
 import { DEFAULT_CUSUM, tabularCusum, type CusumResult } from "./cusum";
 import { DEFAULT_EWMA, ewmaChart, type EwmaResult } from "./ewma";
 import { DEFAULT_FORECAST_HORIZON, forecastCrossings, type ToleranceBand } from "./forecast";
 import type { LinearFit } from "./ols";
 import { controlLimits, DEFAULT_BASELINE_COUNT, estimateBaseline, MIN_BASELINE_COUNT } from "./limits";
-import { describeRule, episodeStarts } from "./rule-messages";
+import { describeRule } from "./rule-messages";
 import { DEFAULT_RUN_RULE_OPTIONS, evaluateRunRules, resolveRules, type RuleFiring } from "./run-rules";
+import { collectSignals, type SignalChannel } from "./series-signals";
 import { autocorrelationWarning, summarize } from "./summary";
-import { daysSinceFirst, isoAfterFirst, pointAxis } from "./time-axis";
+import { daysSinceFirst, daysSinceFirstMs, isoAfterFirstMs, parseIsoInstant, pointAxis } from "./time-axis";
 import { analyzeTrend } from "./trend";
 
 export type * from "./analyze-types";
 
-const NO_SIGNALS: readonly PointSignalId[] = Object.freeze([]);
-
-/** Whole-series analysis: summary, baseline and limits (≥ 8 baseline points, else null with a warning), run rules, EWMA, CUSUM, trend (per day with times, else per point; ≥ 3 points) and forecast against a tolerance. Throws RangeError for unparseable or decreasing times or a times/values length mismatch. */
+/** Whole-series analysis: summary, baseline and limits (≥ 8 baseline points, else null with a warning), run rules, EWMA, CUSUM, trend (per day with times, else per point; ≥ 3 points) and forecast against a tolerance. Times as ISO strings or epoch ms give the same result. Throws RangeError for unparseable or decreasing times, a times/values length mismatch, or both kinds of times. */
 export function analyzeSeries(input: AnalyzeSeriesInput): SeriesAnalysis {
-  const { values, times } = input;
+  const { values, times, timesMs } = input;
   const n = values.length;
-  if (times && times.length !== n) throw new RangeError(`times has ${times.length} entries for ${n} values`);
-  const axis = times ? daysSinceFirst(times) : pointAxis(n);
+  if (times && timesMs) throw new RangeError("Give times or timesMs, not both");
+  const stamps = times ?? timesMs;
+  if (stamps && stamps.length !== n) throw new RangeError(`times has ${stamps.length} entries for ${n} values`);
+  const axis = times ? daysSinceFirst(times) : timesMs ? daysSinceFirstMs(timesMs) : pointAxis(n);
   const warnings: string[] = [];
   const { mean, sd, lag1 } = summarize(values);
   const lagWarning = autocorrelationWarning(lag1);
@@ -46,7 +47,7 @@ export function analyzeSeries(input: AnalyzeSeriesInput): SeriesAnalysis {
   }
   const { pointSignals, signals } = collectSignals(channels, n);
 
-  const trend = analyzeTrend(axis, values, times ? "day" : "point");
+  const trend = analyzeTrend(axis, values, stamps ? "day" : "point");
   const forecast = trend && input.tolerance ? formatForecast(input, input.tolerance, trend.fit, axis) : null;
   return {
     n,
@@ -79,30 +80,6 @@ function baselineWarning(input: AnalyzeSeriesInput, n: number): string {
   return "The baseline points do not vary and no readability d was given, so no limits, run rules, EWMA or CUSUM were computed.";
 }
 
-type SignalChannel = [rule: PointSignalId, firing: Int8Array, describe: (direction: number) => string];
-
-function collectSignals(channels: readonly SignalChannel[], n: number) {
-  // Points share one frozen list per combination of firing channels: most firing points repeat a few combinations.
-  const masks = new Int32Array(n);
-  const signals: SeriesSignal[] = [];
-  channels.forEach(([rule, firing, describe], channel) => {
-    for (let i = 0; i < n; i++) if (firing[i] !== 0) masks[i] |= 1 << channel;
-    for (const index of episodeStarts(firing)) signals.push({ rule, index, message: describe(firing[index]) });
-  });
-  const lists = new Map<number, readonly PointSignalId[]>([[0, NO_SIGNALS]]);
-  const pointSignals: (readonly PointSignalId[])[] = new Array(n);
-  for (let i = 0; i < n; i++) {
-    let list = lists.get(masks[i]);
-    if (list === undefined) {
-      list = Object.freeze(channels.filter((_, channel) => masks[i] & (1 << channel)).map(([rule]) => rule));
-      lists.set(masks[i], list);
-    }
-    pointSignals[i] = list;
-  }
-  signals.sort((a, b) => a.index - b.index);
-  return { pointSignals, signals };
-}
-
 function buildPoints(values: readonly number[], pointSignals: (readonly PointSignalId[])[], ewma: EwmaResult | null, cusum: CusumResult | null): AnalyzedPoint[] {
   const points: AnalyzedPoint[] = new Array(values.length);
   for (let i = 0; i < values.length; i++) {
@@ -122,8 +99,8 @@ function buildPoints(values: readonly number[], pointSignals: (readonly PointSig
 
 function formatForecast(input: AnalyzeSeriesInput, tolerance: ToleranceBand, fit: LinearFit, axis: Float64Array): SeriesAnalysis["forecast"] {
   const crossing = forecastCrossings(fit, tolerance, axis[axis.length - 1], input.forecastHorizon ?? DEFAULT_FORECAST_HORIZON);
-  const first = input.times?.[0];
-  const express = (x: number | null) => (x === null ? null : first === undefined ? x : isoAfterFirst(first, x));
+  const first = input.times ? parseIsoInstant(input.times[0]) : input.timesMs?.[0];
+  const express = (x: number | null) => (x === null ? null : first === undefined ? x : isoAfterFirstMs(first, x));
   return {
     acceptanceAt: express(crossing.acceptanceAt),
     toleranceAt: express(crossing.toleranceAt),

@@ -33,7 +33,9 @@ export function ewmaChart(
   for (let i = 0; i < n; i++) {
     previous = lambda * values[i] + (1 - lambda) * previous;
     decayPower *= decaySquared;
-    const halfWidth = asymptoticHalfWidth * Math.sqrt(1 - decayPower);
+    // Once (1 − λ)^2i is below half an ulp of 1 the factor is exactly √1 = 1: skip the square root.
+    const factor = 1 - decayPower;
+    const halfWidth = factor === 1 ? asymptoticHalfWidth : asymptoticHalfWidth * Math.sqrt(factor);
     z[i] = previous;
     ucl[i] = center + halfWidth;
     lcl[i] = center - halfWidth;

@@ -14,12 +14,19 @@ export class InversionCounter {
   private keysB: Float64Array;
   private indexA: Int32Array;
   private indexB: Int32Array;
+  private sorted: Float64Array;
 
   constructor(readonly capacity: number) {
     this.keysA = new Float64Array(capacity);
     this.keysB = new Float64Array(capacity);
     this.indexA = new Int32Array(capacity);
     this.indexB = new Int32Array(capacity);
+    this.sorted = this.keysA;
+  }
+
+  /** The keys of the last `sortCountingInversions` call in ascending order (a view of scratch space, valid until the next call). */
+  sortedKeys(n: number): Float64Array {
+    return this.sorted.subarray(0, n);
   }
 
   /** Number of pairs i < j with keys[j] < keys[i] (strict; ties are not inversions), by a stable bottom-up merge sort in O(n log n); when `order` is given it receives the indexes in sorted order. 0 for n < 2. */
@@ -84,6 +91,7 @@ export class InversionCounter {
       indexFrom = indexTo;
       indexTo = indexHeld;
     }
+    this.sorted = keysFrom;
     if (order) order.set(indexFrom.subarray(0, n));
     return inversions;
   }

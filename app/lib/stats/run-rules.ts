@@ -1,5 +1,6 @@
 import type { ControlLimits } from "./limits";
 import { alternating, bothSidesRun, kOfWindow, steadyTrend, withinRun } from "./run-detectors";
+import { runRulePass, type Detector } from "./run-pass";
 
 export const RULE_IDS = [
   "we-1", "we-2", "we-3", "we-4",
@@ -51,13 +52,45 @@ export function resolveRules(rules: RuleSetName | "none" | readonly RuleId[] = "
   return [...new Set(rules)];
 }
 
-/** One firing array per rule over the whole series, per DESIGN §3 (strict inequalities, complete windows only); empty input gives empty arrays. */
+const DETECTORS: Record<RuleId, Detector> = {
+  "we-1": "beyondThree",
+  "nelson-1": "beyondThree",
+  "we-4": "weSameSide",
+  "nelson-2": "nelsonSameSide",
+  "nelson-3": "trend",
+  "nelson-4": "alternating",
+  "we-2": "twoOfThree",
+  "nelson-5": "twoOfThree",
+  "we-3": "fourOfFive",
+  "nelson-6": "fourOfFive",
+  "nelson-7": "within",
+  "nelson-8": "bothSides",
+};
+
+/** One firing array per rule over the whole series, per DESIGN §3 (strict inequalities, complete windows only), all in one pass; empty input gives empty arrays. */
 export function evaluateRunRules(
   values: ArrayLike<number>,
   limits: ControlLimits,
   rules: readonly RuleId[],
   options: RunRuleOptions = DEFAULT_RUN_RULE_OPTIONS,
 ): Map<RuleId, RuleFiring> {
+  const windows = [options.nelsonSameSideRun, options.westernElectricSameSideRun, options.beyondTwoSigma.window, options.beyondOneSigma.window];
+  if (!windows.every((w) => Number.isInteger(w) && w > 0)) return evaluateOneByOne(values, limits, rules, options);
+  const firings = runRulePass(values, limits, new Set(rules.map((rule) => DETECTORS[rule])), options);
+  const result = new Map<RuleId, RuleFiring>();
+  const used = new Set<Detector>();
+  for (const rule of rules) {
+    const detector = DETECTORS[rule];
+    const firing = firings[detector] as RuleFiring;
+    // Rules sharing a detector (nelson-1 and we-1) get arrays of their own.
+    result.set(rule, used.has(detector) ? firing.slice() : firing);
+    used.add(detector);
+  }
+  return result;
+}
+
+/** The detectors one pass each (run-detectors.ts), for window lengths that are not positive whole numbers. */
+function evaluateOneByOne(values: ArrayLike<number>, limits: ControlLimits, rules: readonly RuleId[], options: RunRuleOptions): Map<RuleId, RuleFiring> {
   const result = new Map<RuleId, RuleFiring>();
   const { center, ucl, lcl, uwl, lwl, upperOneSigma, lowerOneSigma } = limits;
   for (const rule of rules) {

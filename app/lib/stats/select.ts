@@ -1,3 +1,5 @@
+import { Scratch } from "./scratch";
+
 /** k-th smallest (0-based) of values[0..length) by in-place quickselect (Hoare partition, median-of-three); NaN when k is out of range. */
 export function selectKth(values: Float64Array, k: number, length = values.length): number {
   if (!(k >= 0 && k < length)) return Number.NaN;
@@ -37,4 +39,44 @@ function swap(values: Float64Array, a: number, b: number): void {
   const held = values[a];
   values[a] = values[b];
   values[b] = held;
+}
+
+const BUCKETS = 1024;
+const scratch = new Scratch();
+
+/** The k-th and (k + 1)-th smallest (0-based; the second NaN past the end) of values[0..length), by counting into 1 024 equal-width buckets between the minimum and the maximum, then selecting within the one bucket that holds rank k; may reorder the values. */
+export function selectPairByBuckets(values: Float64Array, k: number, length = values.length): [number, number] {
+  if (!(k >= 0 && k < length)) return [Number.NaN, Number.NaN];
+  let low = Infinity;
+  let high = -Infinity;
+  for (let i = 0; i < length; i++) {
+    low = Math.min(low, values[i]);
+    high = Math.max(high, values[i]);
+  }
+  const scale = BUCKETS / (high - low);
+  if (length < 4 * BUCKETS || !Number.isFinite(scale)) return selectPairInPlace(values.subarray(0, length), k);
+  const counts = scratch.int32(0, BUCKETS).fill(0);
+  for (let i = 0; i < length; i++) counts[Math.min(BUCKETS - 1, ((values[i] - low) * scale) | 0)]++;
+  let bucket = 0;
+  let before = 0;
+  while (before + counts[bucket] <= k) before += counts[bucket++];
+  const inBucket = scratch.float64(0, counts[bucket]);
+  // The next rank may sit in a later bucket: keep the smallest value above this bucket too.
+  let size = 0;
+  let next = Infinity;
+  for (let i = 0; i < length; i++) {
+    const b = Math.min(BUCKETS - 1, ((values[i] - low) * scale) | 0);
+    if (b === bucket) inBucket[size++] = values[i];
+    else if (b > bucket && values[i] < next) next = values[i];
+  }
+  const [a, b] = selectPairInPlace(inBucket.subarray(0, size), k - before);
+  return [a, Number.isNaN(b) && k + 1 < length ? next : b];
+}
+
+/** The k-th and (k + 1)-th smallest of values by quickselect (the second NaN past the end); reorders the array. */
+function selectPairInPlace(values: Float64Array, k: number): [number, number] {
+  const a = selectKth(values, k);
+  let b = Infinity;
+  for (let i = k + 1; i < values.length; i++) if (values[i] < b) b = values[i];
+  return [a, k + 1 < values.length ? b : Number.NaN];
 }

@@ -1,3 +1,5 @@
+import { Scratch } from "./scratch";
+
 export interface SeriesSummary {
   n: number;
   mean: number;
@@ -7,6 +9,8 @@ export interface SeriesSummary {
 
 const MAX_GRID_DECIMALS = 10;
 const MAX_GRID_UNITS = 2 ** 43;
+// The deviations of the series being summarised (written before read).
+const scratch = new Scratch();
 
 /** Decimal places p ≤ 10 such that every value is an integer multiple of 10^−p (to 1e−6 of a step); null when none, or for empty input. */
 export function decimalGrid(values: ArrayLike<number>): number | null {
@@ -15,7 +19,8 @@ export function decimalGrid(values: ArrayLike<number>): number | null {
     let onGrid = true;
     for (let i = 0; i < values.length && onGrid; i++) {
       const units = values[i] * scale;
-      onGrid = Math.abs(units) <= MAX_GRID_UNITS && Math.abs(units - Math.round(units)) <= 1e-6;
+      // floor(u + 0.5) equals Math.round(u) for |u| ≤ 2⁴³ except within an ulp of a half, which is off grid either way.
+      onGrid = Math.abs(units) <= MAX_GRID_UNITS && Math.abs(units - Math.floor(units + 0.5)) <= 1e-6;
     }
     if (onGrid) return p;
   }
@@ -29,7 +34,7 @@ export function summarize(values: ArrayLike<number>): SeriesSummary {
   const p = decimalGrid(values);
   // float64 cannot hold 10000000.1 exactly; on a decimal grid the deviations are exact integers.
   const scale = p === null ? 1 : 10 ** p;
-  const deviations = new Float64Array(n);
+  const deviations = scratch.float64(0, n);
   let reference = 0;
   for (let i = 0; i < n; i++) reference += values[i] * scale;
   reference /= n;
@@ -37,7 +42,8 @@ export function summarize(values: ArrayLike<number>): SeriesSummary {
   let sum = 0;
   for (let i = 0; i < n; i++) {
     const units = values[i] * scale;
-    deviations[i] = (p === null ? units : Math.round(units)) - reference;
+    // On the grid units lie within 1e−6 of an integer, where floor(u + 0.5) is Math.round(u), and cheaper.
+    deviations[i] = (p === null ? units : Math.floor(units + 0.5)) - reference;
     sum += deviations[i];
   }
   const shift = sum / n;

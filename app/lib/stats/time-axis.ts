@@ -1,4 +1,6 @@
 const MS_PER_DAY = 86_400_000;
+/** The range of a JavaScript Date: ±100 000 000 days around 1970. */
+const MAX_INSTANT_MS = 8.64e15;
 // Date-only, or date-time with an explicit offset: a local time without offset would depend on the time zone.
 const ISO_INSTANT = /^\d{4}-\d{2}-\d{2}(?:T\d{2}:\d{2}(?::\d{2}(?:\.\d{1,9})?)?(?:Z|[+-]\d{2}:\d{2}))?$/;
 
@@ -25,6 +27,21 @@ export function daysSinceFirst(times: readonly string[]): Float64Array {
   return days;
 }
 
+/** Days since the first instant, (tᵢ − t₀)/86 400 000 for times in epoch milliseconds (UTC); throws RangeError on a non-finite, out-of-range (|t| > 8.64e15) or decreasing time; empty in, empty out. */
+export function daysSinceFirstMs(times: ArrayLike<number>): Float64Array {
+  const days = new Float64Array(times.length);
+  const origin = times[0];
+  let previous = -Infinity;
+  for (let i = 0; i < times.length; i++) {
+    const ms = times[i];
+    if (!(Math.abs(ms) <= MAX_INSTANT_MS)) throw new RangeError(`Time ${i + 1} is not an instant in epoch milliseconds: ${ms}`);
+    if (ms < previous) throw new RangeError(`Time ${i + 1} is earlier than the time before it`);
+    previous = ms;
+    days[i] = (ms - origin) / MS_PER_DAY;
+  }
+  return days;
+}
+
 /** Point indexes 0, 1, …, n − 1 as a trend axis "per point". */
 export function pointAxis(n: number): Float64Array {
   const axis = new Float64Array(n);
@@ -34,8 +51,13 @@ export function pointAxis(n: number): Float64Array {
 
 /** ISO 8601 UTC string of the instant `days` after the first time; null for a non-finite day count or a date out of range. */
 export function isoAfterFirst(firstTime: string, days: number): string | null {
-  const ms = parseIsoInstant(firstTime) + days * MS_PER_DAY;
-  if (!Number.isFinite(ms) || Math.abs(ms) > 8.64e15) return null;
+  return isoAfterFirstMs(parseIsoInstant(firstTime), days);
+}
+
+/** ISO 8601 UTC string of the instant `days` after `firstMs` (epoch milliseconds); null for a non-finite result or a date out of range. */
+export function isoAfterFirstMs(firstMs: number, days: number): string | null {
+  const ms = firstMs + days * MS_PER_DAY;
+  if (!Number.isFinite(ms) || Math.abs(ms) > MAX_INSTANT_MS) return null;
   return new Date(Math.round(ms)).toISOString();
 }
 

@@ -1,6 +1,5 @@
-import { mannKendall } from "./mann-kendall";
 import { fitLine, type LinearFit } from "./ols";
-import { theilSenSlope } from "./theil-sen";
+import { theilSenAndMannKendall } from "./theil-sen";
 
 export interface TrendResult {
   /** OLS slope in value units per day (or per point). */
@@ -19,13 +18,14 @@ export function analyzeTrend(x: ArrayLike<number>, y: ArrayLike<number>, per: "d
   if (Math.min(x.length, y.length) < 3) return null;
   const fit = fitLine(x, y);
   if (fit === null) return null;
+  const robust = theilSenAndMannKendall(x, y);
   return {
     slope: fit.slope,
     slopeLow: fit.slopeLow,
     slopeHigh: fit.slopeHigh,
     pValue: fit.pValue,
-    theilSen: theilSenSlope(x, y),
-    mannKendallP: mannKendall(y).pValue,
+    theilSen: robust.theilSen,
+    mannKendallP: robust.mannKendall.pValue,
     per,
     fit,
   };

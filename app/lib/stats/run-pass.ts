@@ -1,0 +1,83 @@
+import type { ControlLimits } from "./limits";
+import type { RunRuleOptions } from "./run-rules";
+
+/** The detectors behind the run rules; nelson-1 and we-1 share `beyondThree`, and so on. */
+export type Detector = "beyondThree" | "nelsonSameSide" | "weSameSide" | "trend" | "alternating" | "twoOfThree" | "fourOfFive" | "within" | "bothSides";
+
+/** Per point: 0 = quiet, 1 = fires above or rising, −1 = below or falling, 2 = fires without a side. */
+export type Firings = Partial<Record<Detector, Int8Array>>;
+
+const on = (condition: boolean) => +condition;
+
+/**
+ * All wanted detectors in one pass over values in time order, per DESIGN §3: strict inequalities, a point on the
+ * centre line breaks a same-side run, a tie breaks a rising or falling run, "k of m" windows only when complete and
+ * only when point i is one of the k. Counters are kept with arithmetic instead of branches: in-control data makes
+ * every zone test a coin flip, which a branch predictor cannot follow.
+ */
+export function runRulePass(values: ArrayLike<number>, limits: ControlLimits, wanted: ReadonlySet<Detector>, options: RunRuleOptions): Firings {
+  const n = values.length;
+  const firings: Firings = {};
+  for (const detector of wanted) firings[detector] = new Int8Array(n);
+  const { beyondThree, nelsonSameSide, weSameSide, trend, alternating, twoOfThree, fourOfFive, within, bothSides } = firings;
+  const { center, ucl, lcl, uwl, lwl, upperOneSigma: upper1, lowerOneSigma: lower1 } = limits;
+  const two = options.beyondTwoSigma;
+  const one = options.beyondOneSigma;
+  const trendSteps = options.trendRun - 1;
+  const alternatingSteps = options.alternatingRun - 1;
+  let above = 0; // points in a row strictly above the centre line
+  let below = 0;
+  let rises = 0;
+  let falls = 0;
+  let swings = 0; // differences in a row alternating in sign
+  let previousStep = 0;
+  let twoAbove = 0; // points beyond 2σ above in the window of `two.window` points ending at i
+  let twoBelow = 0;
+  let oneAbove = 0;
+  let oneBelow = 0;
+  let inside = 0; // points in a row strictly within 1σ
+  let outside = 0; // points in a row strictly beyond 1σ
+  // Index of the last point beyond 1σ above (below); small integers keep every counter an unboxed int32.
+  let lastAbove = -(2 ** 29);
+  let lastBelow = -(2 ** 29);
+  for (let i = 0; i < n; i++) {
+    const x = values[i];
+    const a1 = on(x > upper1);
+    const b1 = on(x < lower1);
+    const a2 = on(x > uwl);
+    const b2 = on(x < lwl);
+    above = (above + 1) * on(x > center);
+    below = (below + 1) * on(x < center);
+    if (i > 0) {
+      const step = Math.sign(x - values[i - 1]);
+      rises = (rises + 1) * on(step > 0);
+      falls = (falls + 1) * on(step < 0);
+      // As the definition reads: a zero difference ends the run; one equal to the previous restarts it at 1.
+      swings = on(step !== 0) * (on(previousStep !== 0) * on(step !== previousStep) * swings + 1);
+      previousStep = step;
+    }
+    twoAbove += a2 - (i >= two.window ? on(values[i - two.window] > uwl) : 0);
+    twoBelow += b2 - (i >= two.window ? on(values[i - two.window] < lwl) : 0);
+    oneAbove += a1 - (i >= one.window ? on(values[i - one.window] > upper1) : 0);
+    oneBelow += b1 - (i >= one.window ? on(values[i - one.window] < lower1) : 0);
+    inside = (inside + 1) * on(x > lower1 && x < upper1);
+    outside = (outside + 1) * on(x > upper1 || x < lower1);
+    lastAbove += a1 * (i - lastAbove);
+    lastBelow += b1 * (i - lastBelow);
+    if (beyondThree) beyondThree[i] = sided(on(x > ucl), on(x < lcl));
+    if (nelsonSameSide) nelsonSameSide[i] = sided(on(above >= options.nelsonSameSideRun), on(below >= options.nelsonSameSideRun));
+    if (weSameSide) weSameSide[i] = sided(on(above >= options.westernElectricSameSideRun), on(below >= options.westernElectricSameSideRun));
+    if (trend && i > 0) trend[i] = sided(on(rises >= trendSteps), on(falls >= trendSteps));
+    if (alternating && i > 0) alternating[i] = 2 * on(swings >= alternatingSteps);
+    if (twoOfThree && i >= two.window - 1) twoOfThree[i] = sided(a2 * on(twoAbove >= two.count), b2 * on(twoBelow >= two.count));
+    if (fourOfFive && i >= one.window - 1) fourOfFive[i] = sided(a1 * on(oneAbove >= one.count), b1 * on(oneBelow >= one.count));
+    if (within) within[i] = 2 * on(inside >= options.withinOneSigmaRun);
+    if (bothSides) bothSides[i] = 2 * on(outside >= options.bothSidesRun && lastAbove > i - options.bothSidesRun && lastBelow > i - options.bothSidesRun);
+  }
+  return firings;
+}
+
+/** 1 when the upper condition holds, else −1 when the lower one does, else 0. */
+function sided(up: number, down: number): number {
+  return up - down * (1 - up);
+}
