@@ -6,6 +6,7 @@ import { ProgressBar } from "./progress-bar";
 import { ImportStatusLabel } from "./status-label";
 
 const n = (value: number) => value.toLocaleString("en-GB");
+const validRows = (count: number) => (count === 1 ? "1 valid row" : `${n(count)} valid rows`);
 const megabytes = (bytes: number) => `${(bytes / 1024 / 1024).toFixed(1)} MB`;
 
 function Result({ status }: { status: ImportStatusResponse }) {
@@ -17,7 +18,7 @@ function Result({ status }: { status: ImportStatusResponse }) {
         <p>Nothing was imported: {n(counts.rejected)} of {n(counts.total)} rows were rejected. Download the report, correct those lines and upload the file again{status.canImportValidRows ? ", or import only the valid rows" : ""}.</p>
         {status.canImportValidRows ? (
           <Form method="post">
-            <Button type="submit" name="intent" value="import-valid-rows" variant="secondary">Import the {n(counts.valid - counts.duplicates)} valid rows and keep the report</Button>
+            <Button type="submit" name="intent" value="import-valid-rows" variant="secondary">Import the {validRows(counts.valid - counts.duplicates)} and keep the report</Button>
           </Form>
         ) : null}
       </div>
@@ -47,7 +48,7 @@ export function ImportStatusPanel({ initial }: { initial: ImportStatusResponse }
     <section aria-labelledby="import-status" className="grid max-w-3xl gap-4 rounded-md border border-rule bg-card p-5">
       <h2 id="import-status" className="text-lg font-semibold"><ImportStatusLabel status={status.status} /></h2>
       {status.status === "validating" ? (
-        <ProgressBar label="Checking every row" value={status.bytesRead} max={status.bytesTotal} detail={`${megabytes(status.bytesRead)} of ${megabytes(status.bytesTotal ?? 0)} read · ${n(counts.total)} rows · ${n(counts.rejected)} rejected so far`} />
+        <ProgressBar label="File read and checked" value={status.bytesRead} max={status.bytesTotal} detail={`${megabytes(status.bytesRead)} of ${megabytes(status.bytesTotal ?? 0)} read · ${n(counts.total)} rows · ${n(counts.rejected)} rejected so far`} />
       ) : null}
       {status.status === "importing" ? <ProgressBar label="Writing checks" value={0} max={null} detail={`${n(counts.valid)} rows passed; finding duplicates and writing them in one transaction`} /> : null}
       {error ? <p role="alert" className="text-sm text-out">{error.message} The page keeps trying.</p> : null}
