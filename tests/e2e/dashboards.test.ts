@@ -55,7 +55,7 @@ describe("the metrologist's drift study", () => {
     await target.getByPlaceholder("Reason").fill("Draught shield left open during the reading");
     await target.getByRole("button", { name: "Exclude" }).click();
     await page.getByRole("status").filter({ hasText: "Check excluded" }).waitFor();
-    await expect.poll(() => stageRow.textContent()).not.toBe(before);
+    await expect.poll(() => stageRow.textContent(), { timeout: 30_000 }).not.toBe(before);
     expect(await rings.count()).toBe(ringsBefore + 1);
     expect(await target.textContent()).toContain("Excluded");
     await page.close();
@@ -71,7 +71,7 @@ describe("the site manager's fleet", () => {
     const header = page.getByRole("columnheader", { name: /Forecast to tolerance/ });
     await header.getByRole("link").click();
     await page.waitForURL(/sort=forecast/);
-    await expect.poll(() => header.getAttribute("aria-sort")).toBe("ascending");
+    await expect.poll(() => header.getAttribute("aria-sort"), { timeout: 30_000 }).toBe("ascending");
     const first = await page.locator("table tbody tr").nth(3).locator("td").first().textContent();
     const tags = await page.locator("table:has(caption) tbody tr td:first-child a").allTextContents();
     expect(tags.slice(0, 3)).toContain("AVP-AB-01");

@@ -55,7 +55,7 @@ describe("a technician records checks", () => {
     await screenshot(page, "record-eccentricity");
     await page.getByRole("button", { name: "Record check" }).click();
     await page.getByRole("status").filter({ hasText: "Check recorded" }).waitFor();
-    const table = await page.getByRole("region", { name: "Latest checks" }).textContent();
+    const table = await page.getByRole("region", { name: "Checks", exact: true }).textContent();
     expect(table).toContain("Sensitivity");
     expect(table).toContain("Repeatability");
     expect(table).toContain("Eccentricity");
