@@ -37,26 +37,37 @@ export function collectSignals(channels: readonly SignalChannel[], n: number): {
   return { pointSignals, signals };
 }
 
-/** Bit c of masks[i]: channel c fires at i; of starts[i]: an episode of channel c starts at i. One pass over the points (a pass per channel costs several times more); channels that never fire are skipped. */
+/** Bit c of masks[i]: channel c fires at i; of starts[i]: an episode of channel c starts at i. Episodes are found with the typed arrays' own indexOf, which scans far faster than a loop over every point of every channel. */
 function markChannels(channels: readonly SignalChannel[], n: number): [Int32Array, Int32Array] {
-  const masks = scratch.int32(0, n);
-  const starts = scratch.int32(1, n);
-  const active: Int8Array[] = [];
-  const bits: number[] = [];
-  channels.forEach(([, firing], channel) => {
-    if (firing.indexOf(1) < 0 && firing.indexOf(-1) < 0 && firing.indexOf(2) < 0) return;
-    active.push(firing);
-    bits.push(channel);
-  });
-  let previous = 0;
-  for (let i = 0; i < n; i++) {
-    let mask = 0;
-    for (let a = 0; a < active.length; a++) mask |= (active[a][i] !== 0 ? 1 : 0) << bits[a];
-    masks[i] = mask;
-    starts[i] = mask & ~previous;
-    previous = mask;
+  const masks = scratch.int32(0, n).fill(0);
+  const starts = scratch.int32(1, n).fill(0);
+  for (let channel = 0; channel < channels.length; channel++) {
+    const firing = channels[channel][1];
+    const bit = 1 << channel;
+    // Next position of each firing value at or after `from` (n when none is left), refreshed once passed.
+    const next = [1, -1, 2].map((value) => ({ value, at: -1 }));
+    const nextFiring = (from: number) => {
+      let first = n;
+      for (const entry of next) {
+        if (entry.at !== n && entry.at < from) entry.at = indexOrEnd(firing, entry.value, from, n);
+        first = Math.min(first, entry.at);
+      }
+      return first;
+    };
+    // An episode runs from a firing point to the next quiet one, whatever the sides in between.
+    let end = 0;
+    for (let start = nextFiring(0); start < n; start = nextFiring(end)) {
+      end = indexOrEnd(firing, 0, start, n);
+      starts[start] |= bit;
+      for (let i = start; i < end; i++) masks[i] |= bit;
+    }
   }
   return [masks, starts];
+}
+
+function indexOrEnd(values: Int8Array, value: number, from: number, n: number): number {
+  const at = values.indexOf(value, from);
+  return at < 0 ? n : at;
 }
 
 function signalList(channels: readonly SignalChannel[], mask: number): readonly PointSignalId[] {

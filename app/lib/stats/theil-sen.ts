@@ -18,7 +18,7 @@ interface SortedPoints {
   ordered: boolean;
 }
 
-/** Theil–Sen slope: median of (yⱼ − yᵢ)/(xⱼ − xᵢ) over pairs with xᵢ ≠ xⱼ (mean of the two middle slopes for an even count), in y-units per x-unit, exactly as that definition computes it; NaN for fewer than two distinct x or any non-finite value. Beyond 20 000 pairs by slope selection (merge sorts plus a listing of the pairs near the median). */
+/** Theil–Sen slope: median of (yⱼ − yᵢ)/(xⱼ − xᵢ) over pairs with xᵢ ≠ xⱼ (mean of the two middle slopes for an even count), in y-units per x-unit, exactly as that definition computes it; NaN for fewer than two distinct x or any non-finite value. Beyond 20 000 pairs by exact slope selection: a sort placing slope 0, then a listing of the pairs near the median. */
 export function theilSenSlope(x: ArrayLike<number>, y: ArrayLike<number>): number {
   return medianPairwiseSlope(sortedByXThenY(x, y, Math.min(x.length, y.length)));
 }
@@ -28,7 +28,7 @@ export function theilSenSlopeTuned(x: ArrayLike<number>, y: ArrayLike<number>, t
   return medianPairwiseSlope(sortedByXThenY(x, y, Math.min(x.length, y.length)), undefined, tuning);
 }
 
-/** Theil–Sen slope of y on x and the Mann–Kendall test of y, as `theilSenSlope` and `mannKendall` give them; for time-ordered input one merge sort of y serves both (its inversions are the negative slopes, its ties the zero ones). */
+/** Theil–Sen slope of y on x and the Mann–Kendall test of y, as `theilSenSlope` and `mannKendall` give them; for time-ordered input one sort of y serves both (its inversions are the negative slopes, its ties the zero ones), by counting when the readings sit on a decimal grid. */
 export function theilSenAndMannKendall(x: ArrayLike<number>, y: ArrayLike<number>): { theilSen: number; mannKendall: MannKendallResult } {
   const points = sortedByXThenY(x, y, Math.min(x.length, y.length));
   if (!points.ordered || points.ys.length !== y.length || y.length < 2) return { theilSen: medianPairwiseSlope(points), mannKendall: mannKendall(y) };
