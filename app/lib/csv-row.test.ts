@@ -29,6 +29,11 @@ describe("readRow", () => {
     const read = readRow(["AVP-AB-01", "sensitivity", "2026-11-02 08:15", "1", "", "n".repeat(2001)], layout, 5);
     expect(read).toMatchObject({ kind: "problems", problems: [{ column: "Remarks", reason: "The value is 2,001 characters long; a cell holds at most 2,000." }] });
   });
+
+  it("refuses a zero byte or another control character in a cell", () => {
+    const read = readRow(["AVP-AB-01", "sensitivity", "2026-11-02 08:15", "1", "", "bad\u0000note"], layout, 6);
+    expect(read).toMatchObject({ kind: "problems", problems: [{ column: "Remarks", reason: expect.stringMatching(/^The value holds a control character/) }] });
+  });
 });
 
 describe("linesSpanned", () => {

@@ -4,6 +4,9 @@ import { MAX_RECORD_CHARS, readMarker } from "./csv-guard";
 import { FIELD_LABELS, type ColumnMapping, type Delimiter, type ImportField, REQUIRED_FIELDS } from "./csv-mapping";
 
 export const MAX_CELL_CHARS = 2_000;
+// C0 control characters other than tab and line breaks; PostgreSQL text cannot hold a zero byte at all.
+const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F]/;
+const CONTROLS = new RegExp(CONTROL.source, "g");
 const RAW_KEPT_CHARS = 500;
 
 export interface RowProblem {
@@ -46,8 +49,9 @@ export function linesSpanned(fields: string[]): number {
   return lines;
 }
 
+/** The line as read, shortened, with control characters shown as U+FFFD so the report itself can be stored. */
 export function rawText(fields: string[], delimiter: string): string {
-  const text = fields.join(delimiter);
+  const text = fields.join(delimiter).replace(CONTROLS, "\uFFFD");
   return text.length > RAW_KEPT_CHARS ? `${text.slice(0, RAW_KEPT_CHARS)}…` : text;
 }
 
@@ -85,6 +89,7 @@ export function readRow(fields: string[], layout: ColumnLayout, line: number): R
   }
   for (let i = 0; i < fields.length; i++) {
     if (fields[i].length > MAX_CELL_CHARS) problem(layout.labels[i] ?? null, `The value is ${fmt(fields[i].length)} characters long; a cell holds at most ${fmt(MAX_CELL_CHARS)}.`);
+    else if (CONTROL.test(fields[i])) problem(layout.labels[i] ?? null, "The value holds a control character (such as a zero byte): the file may be binary, or saved in another encoding than the one chosen.");
   }
   if (problems.length) return { kind: "problems", problems };
   for (const field of REQUIRED_FIELDS) {

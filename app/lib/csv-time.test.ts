@@ -47,6 +47,10 @@ describe("parseCheckTime", () => {
     expect(at(text)).toMatch(/is not a real date and time/);
   });
 
+  it("refuses a year before 1970 instead of reading 0026 as 1926", () => {
+    expect(at("0026-11-02 08:15")).toBe("0026 is not a plausible year for a check; Tareline reads check times from 1970 on.");
+  });
+
   it("refuses a time in the future, allowing five minutes of clock skew", () => {
     expect(at("2026-12-01T12:04:00Z")).toBe("2026-12-01T12:04:00.000Z");
     expect(at("2026-12-01T12:06:00Z")).toMatch(/is in the future/);

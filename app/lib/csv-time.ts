@@ -77,6 +77,8 @@ export function parseCheckTime(text: string, zone: string, now: Date): CheckTime
   if (wall.month < 1 || wall.month > 12 || wall.day < 1 || wall.day > daysIn(wall.year, wall.month) || wall.hour > 23 || wall.minute > 59 || wall.second > 59) {
     return { ok: false, message: `"${text.trim()}" is not a real date and time.` };
   }
+  // Date.UTC reads years 0–99 as 1900–1999; no check history reaches that far back anyway.
+  if (wall.year < 1970) return { ok: false, message: `${m[1]} is not a plausible year for a check; Tareline reads check times from 1970 on.` };
   if (m[8] && Math.abs(offsetMs(m[8])) > 14 * 3_600_000) return { ok: false, message: `The offset ${m[8]} is not one any time zone uses.` };
   let ms: number;
   if (m[8]) {

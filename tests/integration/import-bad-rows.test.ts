@@ -101,6 +101,15 @@ describe("bad rows: a clear reason per row, nothing half-written", () => {
     expect(report).toEqual([row(3, "", "The line is 100,000 characters long; Tareline reads lines of up to 10,000 characters."), row(5, "readings", 'Reading 1: "abc" is not a reading in g.')]);
   });
 
+  it("a zero byte past the start of a file is refused on its line, and the report still stores that line", async () => {
+    const file = path.join(os.tmpdir(), `tareline-zero-byte-${process.pid}.csv`);
+    const header = "asset_tag,check_type,performed_at,unit,weight,readings,operator_email,note\n";
+    const good = Array.from({ length: 90 }, (_, i) => `AVP-AB-04,sensitivity,${new Date(Date.UTC(2026, 10, 19, 8, i, 13)).toISOString()},g,AVP-W-05,200.0001,,\n`).join("");
+    await writeFile(file, header + good + "AVP-AB-04,sensitivity,2026-11-19T10:00:13Z,g,AVP-W-05,200.0001,,bad\u0000note\n");
+    const { report } = await rejected(file);
+    expect(report).toEqual([expect.objectContaining({ line: "92", column: "note", reason: expect.stringMatching(/^The value holds a control character/), raw: expect.stringContaining("bad\uFFFDnote") })]);
+  });
+
   it("with 'import the valid rows' the good rows of the same file land and the report keeps the others", async () => {
     const result = await importFile("unknown-references.csv", { mode: "valid_rows" });
     expect(result.status.status).toBe("done");
