@@ -34,7 +34,7 @@ export default function PrintCheck({ loaderData: r }: Route.ComponentProps) {
   const show = (g: number) => formatMass(g, c.unit, i.readabilityG);
   return (
     <main className="print-sheet">
-      <PrintHeader title={`Check record ${c.id}`} subtitle={`${i.assetTag} · ${i.description} · ${i.siteCode} ${i.siteName}`} printedAt={r.printedAt} />
+      <PrintHeader title={`Check record ${c.id}`} subtitle={[i.assetTag, i.description, `${i.siteCode} ${i.siteName}`].filter(Boolean).join(" · ")} printedAt={r.printedAt} />
       {r.supersededBy ? <p role="alert" className="mb-3 border-2 border-out p-2 font-medium">Corrected: superseded on {r.superseded} by check {r.supersededBy.id}. Reason: {r.supersededBy.reason}. This original is kept unchanged.</p> : null}
       {c.correctsCheckId ? <p className="mb-3 border border-ink p-2">This check corrects check {c.correctsCheckId}. Reason for change: {c.correctionReason}</p> : null}
       <h2>Result</h2>
@@ -43,7 +43,7 @@ export default function PrintCheck({ loaderData: r }: Route.ComponentProps) {
         <dt>Outcome</dt><dd><OutcomeBadge outcome={c.outcome} /></dd>
         <dt>Result</dt><dd className="num">{show(c.resultG)}</dd>
         <dt>Tolerance T · acceptance A</dt><dd className="num">{c.toleranceG === null ? "—" : `± ${show(c.toleranceG)} · ± ${show(c.acceptanceG ?? c.toleranceG)}`} ({c.basis})</dd>
-        <dt>Expanded uncertainty (k = 2)</dt><dd className="num">{c.expandedUncertaintyG === null ? "—" : formatUncertainty(c.expandedUncertaintyG, c.unit)}</dd>
+        <dt>Expanded uncertainty (k = 2)</dt><dd className="num">{c.expandedUncertaintyG === null ? "—" : formatUncertainty(c.expandedUncertaintyG, c.expandedUncertaintyG < 1 ? "mg" : c.unit)}</dd>
         <dt>Performed</dt><dd>{r.performed} by {r.operator}</dd>
         <dt>Recorded</dt><dd>{r.recorded} · {c.source}</dd>
         {c.note ? <><dt>Note</dt><dd>{c.note}</dd></> : null}
@@ -53,7 +53,7 @@ export default function PrintCheck({ loaderData: r }: Route.ComponentProps) {
       <h2>Instrument, plan and weight</h2>
       <dl>
         <dt>Max · d · e · class</dt><dd className="num">{formatMass(i.capacityG, naturalUnit(i.capacityG))} · {formatMass(i.readabilityG, naturalUnit(i.readabilityG))} · {formatMass(i.verificationIntervalG, naturalUnit(i.verificationIntervalG))} · {i.accuracyClass ?? "no class"}</dd>
-        <dt>Plan</dt><dd>{r.plan ? `${r.plan.checkType} every ${r.plan.intervalDays} days, ${r.plan.toleranceBasis}` : "—"}</dd>
+        <dt>Plan</dt><dd>{r.plan ? `${r.plan.checkType} every ${r.plan.intervalDays === 1 ? "day" : `${r.plan.intervalDays} days`}, ${r.plan.toleranceBasis}` : "—"}</dd>
         <dt>Test weight</dt><dd className="num">{r.weight ? `${r.weight.identifier} · ${r.weight.weightClass} · conventional mass ${r.weight.conventionalMassG} g · U ${formatMass(r.weight.expandedUncertaintyG, "mg")} · certificate ${r.weight.certificateNumber}, due ${r.weight.dueOn}` : "None (a repeatability load need not be calibrated)"}</dd>
       </dl>
       {r.annotations.length ? (<><h2>Exclusions</h2><table><thead><tr><th>When</th><th>By</th><th>Excluded</th><th>Reason</th></tr></thead><tbody>{r.annotations.map((a) => <tr key={a.id}><td>{a.at}{a.withdrawn ? ` (withdrawn ${a.withdrawn})` : ""}</td><td>{a.by}</td><td>{a.excluded ? "Yes" : "No"}</td><td>{a.reason}</td></tr>)}</tbody></table></>) : null}

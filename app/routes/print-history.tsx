@@ -51,7 +51,7 @@ export default function PrintHistory({ loaderData: h }: Route.ComponentProps) {
   const performers = [...new Set(h.checks.map((c) => c.operator))];
   return (
     <main className="print-sheet">
-      <PrintHeader title={`Instrument history · ${i.assetTag}`} subtitle={`${i.description} · ${i.siteCode} ${i.siteName} · ${h.from} to ${h.to} · times in ${h.tz}`} printedAt={h.printedAt} />
+      <PrintHeader title={`Instrument history · ${i.assetTag}`} subtitle={[i.description, `${i.siteCode} ${i.siteName}`, `${h.from} to ${h.to}`, `times in ${h.tz}`].filter(Boolean).join(" · ")} printedAt={h.printedAt} />
       <Form method="get" className="no-print mb-4 flex items-end gap-3 text-sm">
         <label className="flex flex-col">From<input type="date" name="from" defaultValue={h.from} className="rounded-md border border-rule px-2 py-1" /></label>
         <label className="flex flex-col">To<input type="date" name="to" defaultValue={h.to} className="rounded-md border border-rule px-2 py-1" /></label>

@@ -42,7 +42,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 export default function Schedule({ loaderData }: Route.ComponentProps) {
   return (
     <>
-      <PageHeader title="Schedule" subtitle="Due dates fall on each site's own calendar. An overdue plan is shown as due today, then every interval after." action={<Link to="/checks-due" className="text-sm text-accent underline">Due today</Link>} />
+      <PageHeader title="Schedule" subtitle="Due dates fall on each site's own calendar. An overdue plan is shown as due today, then every interval after." action={<span className="flex gap-4 text-sm"><Link to="/checks-due" className="text-accent underline">Due today</Link><Link to="/plans" className="text-accent underline">All check plans</Link></span>} />
       {loaderData.sites.length === 0 ? <p className="rounded-md border border-dashed border-rule bg-card p-8 text-center text-ink-soft">No active plans on in-service instruments at your sites.</p> : null}
       {loaderData.sites.map((s) => (
         <section key={s.id} aria-labelledby={`site-${s.id}`} className="mb-10">

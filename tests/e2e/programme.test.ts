@@ -78,6 +78,14 @@ describe("the check programme", () => {
     await row.waitFor();
     expect(await row.textContent()).toMatch(/Record sensitivity.*Due today.*None yet/);
     await screenshot(page, "programme-due-today");
+    await row.getByRole("link", { name: "Record sensitivity" }).click();
+    const text = (await page.getByText(/^Conventional mass/).textContent()) ?? "";
+    await page.getByLabel("Reading 1 (g)").fill(Number(/Conventional mass ([\d.]+) g/.exec(text)![1]).toFixed(4));
+    await page.getByRole("button", { name: "Record check" }).click();
+    await page.getByRole("status").filter({ hasText: "Check recorded" }).waitFor();
+    await page.goto(`${baseUrl}/checks-due`);
+    await page.getByRole("heading", { level: 1, name: "Checks due" }).waitFor();
+    expect(await page.getByRole("row").filter({ hasText: TAG }).count()).toBe(0);
     await page.goto(`${baseUrl}/schedule`);
     await page.getByRole("heading", { name: /AVP · today/ }).waitFor();
     await screenshot(page, "programme-schedule");
@@ -122,6 +130,15 @@ describe("the check programme", () => {
       expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
     }
     expect(await page.getByRole("button", { name: "Print" }).isVisible()).toBe(false);
+
+    await page.emulateMedia({ media: "screen" });
+    await page.goto(`${baseUrl}/audit?entity=check`);
+    await page.getByRole("link", { name: "open" }).first().click();
+    await page.getByRole("heading", { level: 1, name: /^Check record \d+$/ }).waitFor();
+    expect(await page.getByRole("main").textContent()).toContain("Within acceptance");
+    await screenshot(page, "programme-print-check");
+    await page.emulateMedia({ media: "print" });
+    await page.pdf({ format: "A4", path: path.join(SCREENSHOTS, "programme-check-A4.pdf") });
     await page.close();
   });
 });
