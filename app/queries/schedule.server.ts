@@ -3,7 +3,7 @@ import { and, asc, desc, eq, inArray, isNull, ne, notExists, sql } from "drizzle
 import { checkPlans, checkPlanWeights, checks, instruments, pointAnnotations, rooms, sites, testWeights } from "../../db/schema";
 import type { DbOrTx } from "../lib/db.server";
 import { visibleSiteIds, type Viewer } from "../lib/permissions";
-import { planDue, type PlanDue } from "../lib/schedule";
+import { localDate, planDue, type PlanDue } from "../lib/schedule";
 
 export interface ScheduledPlan {
   planId: number;
@@ -103,7 +103,7 @@ async function expiredWeightsByPlan(db: DbOrTx, planIds: number[], now: Date, ro
     .where(inArray(checkPlanWeights.planId, planIds));
   const zone = new Map(rows.map((r) => [r.planId, r.timeZone]));
   for (const a of assigned) {
-    const today = new Intl.DateTimeFormat("en-CA", { timeZone: zone.get(a.planId) ?? "UTC" }).format(now);
+    const today = localDate(now, zone.get(a.planId) ?? "UTC");
     if (a.dueOn < today) out.set(a.planId, [...(out.get(a.planId) ?? []), a.identifier]);
   }
   return out;
