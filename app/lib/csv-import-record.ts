@@ -38,6 +38,8 @@ export const ImportOutcomeSchema = z.object({
 export type ImportOutcome = z.infer<typeof ImportOutcomeSchema>;
 
 export const StoredImportSchema = z.object({
+  /** Name of the uploaded file under .data/uploads: random, so databases sharing a folder (tests, benches) never collide. */
+  upload: z.string().regex(/^[0-9a-f-]{36}$/).optional(),
   file: ImportFileSchema.optional(),
   settings: ImportSettingsSchema.optional(),
   outcome: ImportOutcomeSchema.optional(),

@@ -14,6 +14,7 @@ import { insertStaged, rejectInFileDuplicates, setAsideRecorded, stagedSeries } 
 
 export interface ImportRun {
   importId: number;
+  upload: string;
   filename: string;
   file: ImportFile;
   settings: ImportSettings;
@@ -39,7 +40,7 @@ export async function commitStaged(db: Database, tx: Transaction, run: ImportRun
   const counts = { totalRows: read.total, validRows: read.valid - repeats, rejectedRows: rejected, duplicateRows: recorded };
   const audit = { actorId: run.viewer.id, entityType: "import", entityId: String(run.importId), siteId: siteIds.length === 1 ? siteIds[0] : null };
   const save = async (status: "done" | "rejected", outcome: ImportOutcome) => {
-    const stored: StoredImport = { file: run.file, settings: run.settings, outcome };
+    const stored: StoredImport = { upload: run.upload, file: run.file, settings: run.settings, outcome };
     await writeAudit(tx, { ...audit, action: status === "done" ? "import.commit" : "import.reject", after: { filename: run.filename, mode: run.settings.mode, ...counts, ...outcome, siteIds } });
     await tx.update(imports).set({ ...counts, status, finishedAt: new Date(), mapping: stored }).where(eq(imports.id, run.importId));
   };

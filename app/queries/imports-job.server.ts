@@ -56,12 +56,12 @@ export async function startImport(db: Database, viewer: Viewer, importId: number
     const scoped = drizzle({ client, schema, casing: "snake_case" });
     const [row] = await scoped.select().from(imports).where(eq(imports.id, importId));
     const stored = readStoredImport(row?.mapping);
-    if (!row || !stored.file) throw new ImportRefused(404, "No such import.");
+    if (!row || !stored.file || !stored.upload) throw new ImportRefused(404, "No such import.");
     if (row.status !== "mapping" && row.status !== "rejected") throw new ImportRefused(409, `This import is ${row.status} and cannot be started again.`);
     await scoped.delete(importRowsRejected).where(eq(importRowsRejected.importId, importId));
     const reset = { totalRows: 0, validRows: 0, rejectedRows: 0, duplicateRows: 0, bytesRead: 0, finishedAt: null };
-    await scoped.update(imports).set({ ...reset, status: "validating", mapping: { file: stored.file, settings } }).where(eq(imports.id, importId));
-    const run: ImportRun = { importId, filename: row.filename, file: stored.file, settings, viewer, now: options.now ?? new Date() };
+    await scoped.update(imports).set({ ...reset, status: "validating", mapping: { upload: stored.upload, file: stored.file, settings } }).where(eq(imports.id, importId));
+    const run: ImportRun = { importId, upload: stored.upload, filename: row.filename, file: stored.file, settings, viewer, now: options.now ?? new Date() };
     const job = runImport(db, client, run).finally(async () => {
       jobs().delete(importId);
       await client.query("SELECT pg_advisory_unlock($1, $2)", [IMPORT_LOCK_CLASS, importId]).catch(() => undefined);
@@ -114,7 +114,7 @@ async function runImport(db: Database, client: PoolClient, run: ImportRun): Prom
       let bytes = 0;
       try {
         await readImportFile({
-          path: uploadPath(run.importId),
+          path: uploadPath(run.upload),
           file: { encoding: run.settings.encoding, delimiter: run.settings.delimiter },
           mapping: run.settings.mapping,
           onBatch: async (rows, bytesRead) => {
@@ -148,12 +148,12 @@ async function runImport(db: Database, client: PoolClient, run: ImportRun): Prom
       return commitStaged(db, tx, run, { total, valid, rejectedWhileReading: rejections.rows, instruments: seen });
     });
     await outcome.afterCommit();
-    if (outcome.status === "done") await rm(uploadPath(run.importId), { force: true });
+    if (outcome.status === "done") await rm(uploadPath(run.upload), { force: true });
   } catch (error) {
     const known = error instanceof ImportFileError || error instanceof ImportConflict;
     if (!known) console.error(`Import ${run.importId} failed:`, error);
     const message = known ? error.message : "An unexpected error stopped the import; nothing was written. Try again, and tell your administrator if it keeps happening.";
-    await db.update(imports).set({ status: "failed", finishedAt: new Date(), mapping: { file: run.file, settings: run.settings, error: message } }).where(eq(imports.id, run.importId));
-    await rm(uploadPath(run.importId), { force: true });
+    await db.update(imports).set({ status: "failed", finishedAt: new Date(), mapping: { upload: run.upload, file: run.file, settings: run.settings, error: message } }).where(eq(imports.id, run.importId));
+    await rm(uploadPath(run.upload), { force: true });
   }
 }

@@ -15,9 +15,9 @@ export interface ImportPreview {
 }
 
 /** The header's labels and up to eight data rows, cells shortened for display, read with the given encoding and delimiter. */
-export async function readPreview(importId: number, read: { encoding: Encoding; delimiter: Delimiter }): Promise<ImportPreview> {
+export async function readPreview(upload: string, read: { encoding: Encoding; delimiter: Delimiter }): Promise<ImportPreview> {
   const { delimiter } = read;
-  const head = decodeBuffer(await readHead(importId), read.encoding);
+  const head = decodeBuffer(await readHead(upload), read.encoding);
   const lastBreak = head.lastIndexOf("\n");
   const guard = new RecordGuard(delimiter);
   const text = guard.push(lastBreak >= 0 ? head.slice(0, lastBreak + 1) : head) + (lastBreak >= 0 ? "" : guard.end());

@@ -70,8 +70,9 @@ export async function settleStale(db: Database, row: ImportRow): Promise<ImportR
   return settled ?? row;
 }
 
-async function fileKept(importId: number) {
-  return access(uploadPath(importId)).then(
+async function fileKept(upload: string | undefined) {
+  if (!upload) return false;
+  return access(uploadPath(upload)).then(
     () => true,
     () => false,
   );
@@ -97,7 +98,7 @@ export async function importStatusView(row: ImportRow): Promise<ImportStatusView
     outcome: stored.outcome ?? null,
     error: stored.error ?? null,
     reportUrl: row.rejectedRows + row.duplicateRows > 0 ? `/api/v1/imports/${row.id}/report.csv` : null,
-    canImportValidRows: status === "rejected" && row.validRows > 0 && (await fileKept(row.id)),
+    canImportValidRows: status === "rejected" && row.validRows > 0 && (await fileKept(stored.upload)),
   };
 }
 

@@ -1,5 +1,6 @@
 // Receives an upload as a stream straight to a file under .data/uploads (never whole in memory), telling its
 // encoding from the bytes on the way, then reads its header so the person can map the columns.
+import { randomUUID } from "node:crypto";
 import { createWriteStream } from "node:fs";
 import { mkdir, open, readdir, rm, stat } from "node:fs/promises";
 import path from "node:path";
@@ -20,7 +21,10 @@ export const MAX_UPLOAD_BYTES = 256 * 1024 * 1024;
 const HEAD_BYTES = 64 * 1024;
 const KEEP_UPLOADS_MS = 7 * 86_400_000;
 
-export const uploadPath = (importId: number) => path.join(UPLOAD_DIR, `import-${importId}.csv`);
+export function uploadPath(upload: string): string {
+  if (!/^[0-9a-f-]{36}$/.test(upload)) throw new Error("Not an upload name.");
+  return path.join(UPLOAD_DIR, `${upload}.csv`);
+}
 
 export class UploadRefused extends Error {
   constructor(
@@ -31,8 +35,8 @@ export class UploadRefused extends Error {
   }
 }
 
-export async function readHead(importId: number, bytes = HEAD_BYTES): Promise<Buffer> {
-  const handle = await open(uploadPath(importId), "r");
+export async function readHead(upload: string, bytes = HEAD_BYTES): Promise<Buffer> {
+  const handle = await open(uploadPath(upload), "r");
   try {
     const buffer = Buffer.alloc(bytes);
     const { bytesRead } = await handle.read(buffer, 0, bytes, 0);
@@ -62,11 +66,11 @@ function counting(sniffer: EncodingSniffer, limit: number) {
   return { counter, bytes: () => total };
 }
 
-async function describeFile(importId: number, sniffer: EncodingSniffer, bytes: number): Promise<ImportFile> {
+async function describeFile(upload: string, sniffer: EncodingSniffer, bytes: number): Promise<ImportFile> {
   const sniffed = sniffer.result();
   if (bytes === 0) throw new UploadRefused(422, "The file is empty.");
   if (sniffed.binary) throw new UploadRefused(415, "This is not a text file. Save the sheet as CSV (comma- or semicolon-separated) and upload that.");
-  const text = decodeBuffer(await readHead(importId), sniffed.encoding);
+  const text = decodeBuffer(await readHead(upload), sniffed.encoding);
   const delimiter = detectDelimiter(text);
   const header = Papa.parse<string[]>(firstRecord(text), { delimiter }).data[0] ?? [];
   if (!header.some((cell) => cell.trim())) throw new UploadRefused(422, "The file has no header line: the first line must name the columns.");
@@ -76,19 +80,20 @@ async function describeFile(importId: number, sniffer: EncodingSniffer, bytes: n
 /** Stores the upload and returns the new import's id; a refused upload leaves no file and an import marked failed. */
 export async function receiveUpload(db: Database, viewer: Viewer, params: { filename: string; body: Readable; maxBytes?: number }): Promise<number> {
   const filename = path.basename(params.filename.trim()).slice(0, 200) || "upload.csv";
-  const [row] = await db.insert(imports).values({ createdById: viewer.id, filename, status: "uploading" }).returning({ id: imports.id });
+  const upload = randomUUID();
+  const [row] = await db.insert(imports).values({ createdById: viewer.id, filename, status: "uploading", mapping: { upload } satisfies StoredImport }).returning({ id: imports.id });
   await mkdir(UPLOAD_DIR, { recursive: true });
   const sniffer = new EncodingSniffer();
   const { counter, bytes } = counting(sniffer, params.maxBytes ?? MAX_UPLOAD_BYTES);
   try {
-    await pipeline(params.body, counter, createWriteStream(uploadPath(row.id)));
-    const file = await describeFile(row.id, sniffer, bytes());
-    const stored: StoredImport = { file };
+    await pipeline(params.body, counter, createWriteStream(uploadPath(upload)));
+    const file = await describeFile(upload, sniffer, bytes());
+    const stored: StoredImport = { upload, file };
     await db.update(imports).set({ status: "mapping", bytesTotal: bytes(), mapping: stored }).where(eq(imports.id, row.id));
   } catch (error) {
-    await rm(uploadPath(row.id), { force: true });
+    await rm(uploadPath(upload), { force: true });
     const refusal = error instanceof UploadRefused ? error : new UploadRefused(400, "The upload was interrupted before the whole file arrived; upload it again.");
-    await db.update(imports).set({ status: "failed", finishedAt: new Date(), bytesTotal: bytes(), mapping: { error: refusal.message } satisfies StoredImport }).where(eq(imports.id, row.id));
+    await db.update(imports).set({ status: "failed", finishedAt: new Date(), bytesTotal: bytes(), mapping: { upload, error: refusal.message } satisfies StoredImport }).where(eq(imports.id, row.id));
     throw refusal;
   }
   await sweepOldUploads(Date.now());

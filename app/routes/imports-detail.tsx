@@ -38,10 +38,10 @@ async function siteZones(viewer: Viewer) {
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { viewer, row } = await load(request, params.id);
   const status = await importStatusView(row);
-  const file = readStoredImport(row.mapping).file;
-  if (status.status !== "mapping" || !file) return { status, mapping: null };
+  const { file, upload } = readStoredImport(row.mapping);
+  if (status.status !== "mapping" || !file || !upload) return { status, mapping: null };
   const read = readSettings(new URL(request.url), file);
-  const preview = await readPreview(row.id, read).catch(() => null);
+  const preview = await readPreview(upload, read).catch(() => null);
   if (!preview) return { status: { ...status, error: "The uploaded file is no longer kept; upload it again." }, mapping: null };
   const zones = await siteZones(viewer);
   return {
@@ -60,9 +60,9 @@ export async function action({ request, params }: Route.ActionArgs) {
       await startImport(db(), viewer, row.id, { ...stored.settings, mode: "valid_rows" });
       return redirect(`/imports/${row.id}`);
     }
-    if (!stored.file) return data({ errors: ["The uploaded file is no longer kept; upload it again."] }, { status: 409 });
+    if (!stored.file || !stored.upload) return data({ errors: ["The uploaded file is no longer kept; upload it again."] }, { status: 409 });
     const read = readSettings(form, stored.file);
-    const { labels } = await readPreview(row.id, read);
+    const { labels } = await readPreview(stored.upload, read);
     const mapping: ColumnMapping = {};
     labels.forEach((label, i) => {
       const field = IMPORT_FIELDS.find((f) => f === form.get(`map:${i}`));

@@ -5,6 +5,7 @@ import path from "node:path";
 import { Readable } from "node:stream";
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { readStoredImport } from "../../app/lib/csv-import-record";
 import { db } from "../../app/lib/db.server";
 import { getViewer } from "../../app/queries/people.server";
 import { receiveUpload, UPLOAD_DIR, UploadRefused } from "../../app/queries/imports-upload.server";
@@ -100,7 +101,9 @@ describe("refused uploads and interrupted jobs", () => {
     expect((error as UploadRefused).message).toMatch(message);
     const [last] = await db().select().from(imports).orderBy(imports.id).then((rows) => rows.slice(-1));
     expect(last.status).toBe("failed");
-    expect(await readdir(UPLOAD_DIR)).not.toContain(`import-${last.id}.csv`);
+    const { upload } = readStoredImport(last.mapping);
+    expect(upload).toMatch(/^[0-9a-f-]{36}$/);
+    expect(await readdir(UPLOAD_DIR)).not.toContain(`${upload}.csv`);
   });
 
   it("a file over the size limit is cut off with 413", async () => {
