@@ -33,7 +33,8 @@ export async function listTrainingBySite(db: DbOrTx, viewer: Viewer, now: Date) 
       const people = visibleMembers.filter((m) => m.siteId === site.id);
       const rows = records
         .filter((r) => people.some((p) => p.userId === r.userId))
-        .map((r) => ({ ...r, person: people.find((p) => p.userId === r.userId)!.name, ...trainingState(r.expiresOn, today) }));
+        .map((r) => ({ ...r, person: people.find((p) => p.userId === r.userId)!.name, ...trainingState(r.expiresOn, today) }))
+        .sort((a, b) => a.person.localeCompare(b.person) || a.procedure.localeCompare(b.procedure));
       return { id: site.id, code: site.code, name: site.name, today, people, rows, canManage: can(viewer, "manage_training", site.id) };
     })
     .filter((s) => s.people.length > 0);

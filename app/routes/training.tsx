@@ -83,12 +83,12 @@ export default function Training({ loaderData, actionData }: Route.ComponentProp
                 {s.rows.length === 0 ? <tr><td colSpan={7} className="px-3 py-4 text-center text-ink-soft">No training recorded for the people at this site.</td></tr> : null}
                 {s.rows.map((r) => (
                   <tr key={r.id} className="border-b border-rule/60 last:border-0">
-                    <td className="px-3 py-2">{r.person}</td>
+                    <td className="whitespace-nowrap px-3 py-2">{r.person}</td>
                     <td className="px-3 py-2">{r.procedure}</td>
-                    <td className="num px-3 py-2">{r.trainedOn}</td>
-                    <td className="px-3 py-2">{r.trainerName}</td>
-                    <td className="num px-3 py-2">{r.expiresOn ?? "No expiry"}</td>
-                    <td className="px-3 py-2"><StateLabel state={r.state} daysLeft={r.daysLeft} /></td>
+                    <td className="num whitespace-nowrap px-3 py-2">{r.trainedOn}</td>
+                    <td className="whitespace-nowrap px-3 py-2">{r.trainerName}</td>
+                    <td className="num whitespace-nowrap px-3 py-2">{r.expiresOn ?? "No expiry"}</td>
+                    <td className="whitespace-nowrap px-3 py-2"><StateLabel state={r.state} daysLeft={r.daysLeft} /></td>
                     <td className="px-3 py-2 text-ink-soft">{r.evidence}</td>
                   </tr>
                 ))}

@@ -40,7 +40,7 @@ export default function Weights({ loaderData }: Route.ComponentProps) {
         <table className="w-full rounded-md border border-rule bg-card text-sm">
           <thead className="border-b border-rule text-ink-soft">
             <tr>
-              {["Identifier", "Site", "Nominal", "Class", "Conventional mass", "U (k = 2)", "Certificate", "Due", "Plans"].map((h) => <th key={h} scope="col" className="px-3 py-2 text-left font-medium">{h}</th>)}
+              {["Identifier", "Site", "Nominal", "Class", "Conventional mass", "U (k = 2)", "Certificate", "Due", "Plans"].map((h) => <th key={h} scope="col" className={`px-3 py-2 font-medium ${h === "Plans" ? "text-right" : "text-left"}`}>{h}</th>)}
             </tr>
           </thead>
           <tbody>
