@@ -26,6 +26,7 @@ import { validateRow, type ValidationEnv } from "./imports-validate.server";
 /** First key of pg_advisory_lock(int, int); the second is the import's id. */
 export const IMPORT_LOCK_CLASS = 7301;
 const PROGRESS_EVERY_MS = 300;
+export const MAX_RUNNING_JOBS = 3;
 
 export class ImportRefused extends Error {
   constructor(
@@ -48,6 +49,8 @@ export function waitForImport(importId: number): Promise<void> {
 
 /** Claims an uploaded import (waiting for its mapping, or rejected and tried again) and starts it; returns once it runs. */
 export async function startImport(db: Database, viewer: Viewer, importId: number, settings: ImportSettings, options: { now?: Date } = {}): Promise<void> {
+  // Each job holds a pooled connection for its whole run; a few at once leave the rest of the app its connections.
+  if (jobs().size >= MAX_RUNNING_JOBS) throw new ImportRefused(409, `${MAX_RUNNING_JOBS} imports are running on this server; start this one when one of them has finished.`);
   const client = await db.$client.connect();
   let started = false;
   try {

@@ -90,6 +90,21 @@ describe("who may import and see an import", () => {
 });
 
 describe("refused uploads and interrupted jobs", () => {
+  it("no more than three imports run at once on one server; a fourth is refused and stays waiting for its mapping", async () => {
+    const id = (await upload(path.resolve(import.meta.dirname, "../fixtures/imports/tareline-format.csv"))).body as { id: number };
+    const running = (globalThis.__tarelineImportJobs ??= new Map());
+    const never = new Promise<void>(() => undefined);
+    for (const fake of [-1, -2, -3]) running.set(fake, never);
+    try {
+      const body = JSON.stringify({ mapping: { asset_tag: "asset_tag", check_type: "check_type", performed_at: "performed_at", readings: "readings" }, unit: "g", timeZone: "site", mode: "all_or_nothing", delimiter: ",", encoding: "utf-8" });
+      const refused = await run(apiStart.action, request(`/api/v1/imports/${id.id}/start`, { method: "POST", cookie: await cookieFor(METROLOGIST), body }), { id: String(id.id) });
+      expect(refused.status).toBe(409);
+      expect((await status(id.id)).status).toBe("mapping");
+    } finally {
+      for (const fake of [-1, -2, -3]) running.delete(fake);
+    }
+  });
+
   it.each([
     ["an empty file", Buffer.alloc(0), 422, "The file is empty."],
     ["a binary file", Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x00, 0x00, 0x14, 0x00, 0x08, 0x00]), 415, /^This is not a text file/],
