@@ -57,6 +57,9 @@ export function MappingForm({ labels, rows, suggested, saved, read, siteZones, o
           </label>
         ) : null}
         <PreviewTable labels={labels} rows={rows} mapping={mapping} onChange={change} />
+        <p className="max-w-3xl text-xs text-ink-faint">
+          Asset tag, check type, performed at and readings are needed. Several readings go in one cell separated by "|", or in several columns mapped to Readings; eccentricity takes five, centre first, then front-left, back-left, back-right, front-right. A row without an operator e-mail is recorded under your name.
+        </p>
         <div className="flex flex-wrap gap-4 text-sm">
           <label className="grid gap-1"><span className="font-medium">Unit of readings without one</span>
             <select name="unit" defaultValue="g" className={select}>{MASS_UNITS.map((u) => <option key={u} value={u}>{u}</option>)}</select>
