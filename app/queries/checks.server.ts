@@ -13,6 +13,7 @@ import { formatMass } from "../lib/units";
 import { writeAudit } from "./audit.server";
 import { findPlan, findWeight, instrumentSpec, isTrained, planWeights, requirementSpec, weightSpec } from "./check-context.server";
 import { applyConsequences, type Consequences } from "./consequences.server";
+import { notifyDrift, previousSummary } from "./drift-notices.server";
 import { refreshSeriesSummary } from "./series-summary.server";
 
 export interface CheckSubmission {
@@ -137,7 +138,9 @@ export async function recordCheck(db: Database, viewer: Viewer, submission: Chec
     await writeAudit(tx, { actorId: viewer.id, action: "check.record", entityType: "check", entityId: String(row.id), siteId: instrument.siteId, after: { ...row, readings: parsed.readings.map((r) => r.entered) } });
     const resultText = formatMass(evaluation.resultG, submission.unit, instrument.readabilityG);
     const consequences = await applyConsequences(tx, { instrument, checkId: row.id, type: submission.type, outcome: evaluation.outcome, performedAt: submission.performedAt, resultText, actorId: viewer.id });
+    const before = await previousSummary(tx, instrument.id, submission.type);
     const summary = await refreshSeriesSummary(tx, instrument.id, submission.type, now);
+    const driftIds = consequences.instrumentStatus === "in_service" ? await notifyDrift(tx, { instrument, type: submission.type, checkId: row.id, before, after: summary, now }) : [];
     return {
       id: row.id,
       outcome: evaluation.outcome,
@@ -145,7 +148,7 @@ export async function recordCheck(db: Database, viewer: Viewer, submission: Chec
       uncertainty: evaluation.expandedUncertaintyG === null ? null : { expanded: evaluation.expandedUncertaintyG, coverageFactor: 2 },
       signals: summary.activeSignals,
       instrumentStatus: consequences.instrumentStatus,
-      notificationIds: consequences.notificationIds,
+      notificationIds: [...consequences.notificationIds, ...driftIds],
       replayed: false,
     } satisfies RecordedCheck;
   });
