@@ -27,8 +27,17 @@ const cluster = startCluster({ dataDir: path.join(dataDir, "postgres"), port: pg
 const stops: (() => unknown)[] = [() => cluster.stop()];
 let server: ChildProcess | undefined;
 
+let stopping = false;
 async function shutdown(code: number) {
-  if (server?.pid && server.exitCode === null) server.kill("SIGTERM");
+  if (stopping) return;
+  stopping = true;
+  if (server?.pid && server.exitCode === null) {
+    const exited = new Promise((resolve) => server!.once("exit", resolve));
+    server.kill("SIGTERM");
+    const timer = setTimeout(() => server?.kill("SIGKILL"), 5_000);
+    await exited;
+    clearTimeout(timer);
+  }
   for (const stop of stops.reverse()) await stop();
   process.exit(code);
 }

@@ -42,7 +42,8 @@ for (const project of ["unit", "integration", "e2e"]) {
   if (existsSync(report)) {
     const json = JSON.parse(readFileSync(report, "utf8")) as { numPassedTests: number; numFailedTests: number; numPendingTests: number; numTodoTests: number };
     passed += json.numPassedTests;
-    failed += json.numFailedTests;
+    // A run that failed before or after its tests (setup, teardown) counts as one failure even with no failed test.
+    failed += Math.max(json.numFailedTests, fine ? 0 : 1);
     skipped += json.numPendingTests + json.numTodoTests;
   }
   if (!fine && !existsSync(report)) failed += 1;

@@ -45,9 +45,12 @@ export default async function setup(project: TestProject) {
   project.provide("baseUrl", baseUrl);
   project.provide("outbox", outbox);
   return async () => {
+    // The server may hold open connections (a job queue, idle pools); it gets five seconds, then it is killed.
     const exited = new Promise((resolve) => server.once("exit", resolve));
     server.kill("SIGTERM");
+    const timer = setTimeout(() => server.kill("SIGKILL"), 5_000);
     await exited;
+    clearTimeout(timer);
     await idp.stop();
     await smtp.stop();
   };
