@@ -1,6 +1,7 @@
 // The working side of scripts/bench-engine.ts: the seeded fleet, and a loop that claims series a few at a time
 // from a counter shared by all threads, so that a thread slowed by other work on the machine simply takes fewer.
-// It runs in the main thread for --threads 1 and as the worker entry otherwise.
+// The fleet is built once, in memory all threads share; each claimed series is copied into a plain array first,
+// as callers hand the engine arrays of numbers. It runs in the main thread for --threads 1 and as the worker entry otherwise.
 import { isMainThread, parentPort, workerData } from "node:worker_threads";
 import { analyzeSeries } from "../app/lib/stats/analyze";
 import { theilSenAndMannKendall } from "../app/lib/stats/theil-sen";
@@ -13,6 +14,8 @@ export interface Job {
   warmup: number;
   /** Int32 claim counter, then per series a Float64 digest of the trend and an Int32 count of signals. */
   shared: SharedArrayBuffer;
+  /** The fleet's values, series after series (`seriesCount` × `points` Float64). */
+  values: SharedArrayBuffer;
 }
 
 export interface EngineResult {
@@ -68,15 +71,18 @@ function buildValues(index: number, points: number): number[] {
   return values;
 }
 
-/** Bytes of the shared buffer for a fleet: the counter (padded to 8), then the digests and the signal counts. */
-export function sharedBytes(seriesCount: number): number {
-  return 8 + seriesCount * 12;
+/** A job with its shared buffers: the counter (padded to 8 bytes), digests and signal counts; and the fleet, built here. */
+export function createJob(seriesCount: number, points: number, iso: boolean, warmup: number): Job {
+  const values = new SharedArrayBuffer(seriesCount * points * 8);
+  for (let i = 0; i < seriesCount; i++) new Float64Array(values, i * points * 8, points).set(buildValues(i, points));
+  return { seriesCount, points, iso, warmup, shared: new SharedArrayBuffer(8 + seriesCount * 12), values };
 }
 
-/** A thread's view of the fleet: every series is built (before the clock), each thread analyses those it claims. */
+/** A thread's view of the fleet: each thread analyses the series it claims. */
 export class FleetWorker {
   private readonly times: { ms: Float64Array; iso: string[] };
-  private readonly fleet: number[][];
+  private readonly fleet: Float64Array;
+  private readonly series: number[];
   private readonly counter: Int32Array;
   private readonly digests: Float64Array;
   private readonly signals: Int32Array;
@@ -84,7 +90,8 @@ export class FleetWorker {
 
   constructor(private readonly job: Job) {
     this.times = buildTimes(job.points);
-    this.fleet = Array.from({ length: job.seriesCount }, (_, i) => buildValues(i, job.points));
+    this.fleet = new Float64Array(job.values);
+    this.series = new Array<number>(job.points).fill(0);
     this.counter = new Int32Array(job.shared, 0, 1);
     this.digests = new Float64Array(job.shared, 8, job.seriesCount);
     this.signals = new Int32Array(job.shared, 8 + 8 * job.seriesCount, job.seriesCount);
@@ -101,7 +108,7 @@ export class FleetWorker {
     const cpuBefore = process.cpuUsage();
     for (let first = Atomics.add(this.counter, 0, CHUNK); first < this.job.seriesCount; first = Atomics.add(this.counter, 0, CHUNK)) {
       for (let i = first; i < Math.min(first + CHUNK, this.job.seriesCount); i++) {
-        const result = this.analyze(this.fleet[i]);
+        const result = this.analyze(this.copy(i));
         this.signals[i] = result.signals.length;
         this.digests[i] = result.trend ? result.trend.slope + result.trend.pValue + result.trend.theilSen * 1e6 + result.trend.mannKendallP : 0;
         this.claimed.push(i);
@@ -116,17 +123,22 @@ export class FleetWorker {
     const axis = daysSinceFirstMs(this.times.ms);
     const robustStarted = performance.now();
     let slopes = 0;
-    for (const i of this.claimed) slopes += theilSenAndMannKendall(axis, this.fleet[i]).theilSen;
+    for (const i of this.claimed) slopes += theilSenAndMannKendall(axis, this.copy(i)).theilSen;
     const robustTrendMs = performance.now() - robustStarted;
     const sumStarted = performance.now();
     let sum = 0;
-    for (const i of this.claimed) {
-      const values = this.fleet[i];
-      for (let k = 0; k < values.length; k++) sum += values[k];
-    }
+    const { fleet, job } = this;
+    for (const i of this.claimed) for (let k = i * job.points; k < (i + 1) * job.points; k++) sum += fleet[k];
     const sumMs = performance.now() - sumStarted;
     if (!Number.isFinite(sum + slopes)) throw new Error("unreachable: keeps the loops from being optimised away");
     return { robustTrendMs, sumMs };
+  }
+
+  /** Series i in the reused plain array (the engine keeps no reference to its input). */
+  private copy(i: number): number[] {
+    const { points } = this.job;
+    for (let k = 0, at = i * points; k < points; k++) this.series[k] = this.fleet[at + k];
+    return this.series;
   }
 
   private analyze(values: number[]) {

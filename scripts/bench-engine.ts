@@ -5,7 +5,7 @@
 // (not timed), which shows the steady state of a long-running process once the compiler has done its work.
 import { availableParallelism } from "node:os";
 import { Worker } from "node:worker_threads";
-import { FleetWorker, sharedBytes, type EngineResult, type ExtraResult, type Job } from "./bench-engine-worker";
+import { createJob, FleetWorker, type EngineResult, type ExtraResult, type Job } from "./bench-engine-worker";
 
 function option(name: string, fallback: number): number {
   const at = process.argv.indexOf(`--${name}`);
@@ -38,7 +38,7 @@ interface Run {
 
 async function main(): Promise<void> {
   const seriesCount = option("series", 2000);
-  const job: Job = { seriesCount, points: option("points", 1100), iso: process.argv.includes("--iso"), warmup: option("warmup", 0), shared: new SharedArrayBuffer(sharedBytes(seriesCount)) };
+  const job = createJob(seriesCount, option("points", 1100), process.argv.includes("--iso"), option("warmup", 0));
   const threads = Math.max(1, Math.min(option("threads", 2), availableParallelism()));
   if (threads === 1) {
     const worker = new FleetWorker(job);
