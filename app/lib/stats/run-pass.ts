@@ -21,8 +21,10 @@ export function runRulePass(values: ArrayLike<number>, limits: ControlLimits, wa
   for (const detector of wanted) firings[detector] = new Int8Array(n);
   const { beyondThree, nelsonSameSide, weSameSide, trend, alternating, twoOfThree, fourOfFive, within, bothSides } = firings;
   const { center, ucl, lcl, uwl, lwl, upperOneSigma: upper1, lowerOneSigma: lower1 } = limits;
-  const two = options.beyondTwoSigma;
-  const one = options.beyondOneSigma;
+  // Every length a local: the loop then reads no object field.
+  const { count: twoCount, window: twoWindow } = options.beyondTwoSigma;
+  const { count: oneCount, window: oneWindow } = options.beyondOneSigma;
+  const { nelsonSameSideRun, westernElectricSameSideRun, withinOneSigmaRun, bothSidesRun } = options;
   const trendSteps = options.trendRun - 1;
   const alternatingSteps = options.alternatingRun - 1;
   let above = 0; // points in a row strictly above the centre line
@@ -31,7 +33,7 @@ export function runRulePass(values: ArrayLike<number>, limits: ControlLimits, wa
   let falls = 0;
   let swings = 0; // differences in a row alternating in sign
   let previousStep = 0;
-  let twoAbove = 0; // points beyond 2σ above in the window of `two.window` points ending at i
+  let twoAbove = 0; // points beyond 2σ above in the window of `twoWindow` points ending at i
   let twoBelow = 0;
   let oneAbove = 0;
   let oneBelow = 0;
@@ -56,23 +58,23 @@ export function runRulePass(values: ArrayLike<number>, limits: ControlLimits, wa
       swings = on(step !== 0) * (on(previousStep !== 0) * on(step !== previousStep) * swings + 1);
       previousStep = step;
     }
-    twoAbove += a2 - (i >= two.window ? on(values[i - two.window] > uwl) : 0);
-    twoBelow += b2 - (i >= two.window ? on(values[i - two.window] < lwl) : 0);
-    oneAbove += a1 - (i >= one.window ? on(values[i - one.window] > upper1) : 0);
-    oneBelow += b1 - (i >= one.window ? on(values[i - one.window] < lower1) : 0);
+    twoAbove += a2 - (i >= twoWindow ? on(values[i - twoWindow] > uwl) : 0);
+    twoBelow += b2 - (i >= twoWindow ? on(values[i - twoWindow] < lwl) : 0);
+    oneAbove += a1 - (i >= oneWindow ? on(values[i - oneWindow] > upper1) : 0);
+    oneBelow += b1 - (i >= oneWindow ? on(values[i - oneWindow] < lower1) : 0);
     inside = (inside + 1) * on(x > lower1 && x < upper1);
     outside = (outside + 1) * on(x > upper1 || x < lower1);
     lastAbove += a1 * (i - lastAbove);
     lastBelow += b1 * (i - lastBelow);
     if (beyondThree) beyondThree[i] = sided(on(x > ucl), on(x < lcl));
-    if (nelsonSameSide) nelsonSameSide[i] = sided(on(above >= options.nelsonSameSideRun), on(below >= options.nelsonSameSideRun));
-    if (weSameSide) weSameSide[i] = sided(on(above >= options.westernElectricSameSideRun), on(below >= options.westernElectricSameSideRun));
+    if (nelsonSameSide) nelsonSameSide[i] = sided(on(above >= nelsonSameSideRun), on(below >= nelsonSameSideRun));
+    if (weSameSide) weSameSide[i] = sided(on(above >= westernElectricSameSideRun), on(below >= westernElectricSameSideRun));
     if (trend && i > 0) trend[i] = sided(on(rises >= trendSteps), on(falls >= trendSteps));
     if (alternating && i > 0) alternating[i] = 2 * on(swings >= alternatingSteps);
-    if (twoOfThree && i >= two.window - 1) twoOfThree[i] = sided(a2 * on(twoAbove >= two.count), b2 * on(twoBelow >= two.count));
-    if (fourOfFive && i >= one.window - 1) fourOfFive[i] = sided(a1 * on(oneAbove >= one.count), b1 * on(oneBelow >= one.count));
-    if (within) within[i] = 2 * on(inside >= options.withinOneSigmaRun);
-    if (bothSides) bothSides[i] = 2 * on(outside >= options.bothSidesRun && lastAbove > i - options.bothSidesRun && lastBelow > i - options.bothSidesRun);
+    if (twoOfThree && i >= twoWindow - 1) twoOfThree[i] = sided(a2 * on(twoAbove >= twoCount), b2 * on(twoBelow >= twoCount));
+    if (fourOfFive && i >= oneWindow - 1) fourOfFive[i] = sided(a1 * on(oneAbove >= oneCount), b1 * on(oneBelow >= oneCount));
+    if (within) within[i] = 2 * on(inside >= withinOneSigmaRun);
+    if (bothSides) bothSides[i] = 2 * on(outside >= bothSidesRun && lastAbove > i - bothSidesRun && lastBelow > i - bothSidesRun);
   }
   return firings;
 }
