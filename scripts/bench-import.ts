@@ -1,20 +1,13 @@
 // `npm run bench:import`: a generated check-history CSV (1,000,000 rows by default) imported end to end through
-// the same functions the upload and start routes call, next to `psql \copy` of the same file into a bare table
-// in the same run and cluster (the physical limit). Prints rows per second, the ratio and the peak RSS.
+// the same functions the upload and start routes call (in a process of its own, scripts/lib/bench-import-run.ts),
+// next to `psql \copy` of the same file into a bare table in the same run and cluster (the physical limit).
+// Prints rows per second, the ratio and the importing process's peak RSS.
 // Usage: npm run bench:import -- [--rows 1000000] [--port 54391]
 import { spawnSync } from "node:child_process";
-import { createReadStream } from "node:fs";
 import { mkdir, rm, stat } from "node:fs/promises";
 import path from "node:path";
-import { count, desc, eq } from "drizzle-orm";
+import { z } from "zod";
 import { createDatabase } from "../app/lib/db.server";
-import { suggestMapping } from "../app/lib/csv-mapping";
-import { readStoredImport } from "../app/lib/csv-import-record";
-import { startImport, waitForImport } from "../app/queries/imports-job.server";
-import { receiveUpload } from "../app/queries/imports-upload.server";
-import { getViewer } from "../app/queries/people.server";
-import { checks, importRowsRejected, imports, users } from "../db/schema";
-import { DEMO_PEOPLE } from "../db/seed/people";
 import { seedDemo } from "../db/seed/seed";
 import { ensureDatabase, runMigrations } from "./lib/database";
 import { loadTargets, writeCheckCsv } from "./lib/generate-check-csv";
@@ -32,8 +25,18 @@ const csv = path.join(work, "check-history.csv");
 const mb = (bytes: number) => `${(bytes / 1024 / 1024).toFixed(1)} MB`;
 const perSecond = (rows: number, ms: number) => Math.round(rows / (ms / 1000));
 
-let peakRss = 0;
-const sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage().rss)), 50);
+const ImportRunSchema = z.object({
+  uploadMs: z.number(),
+  validatedMs: z.number(),
+  importMs: z.number(),
+  status: z.string(),
+  written: z.number(),
+  rejected: z.number(),
+  duplicates: z.number(),
+  reasons: z.array(z.object({ reason: z.string(), n: z.number() })),
+  rssBefore: z.number(),
+  maxRss: z.number(),
+});
 
 await rm(work, { recursive: true, force: true });
 await mkdir(work, { recursive: true });
@@ -44,9 +47,6 @@ try {
   await runMigrations(cluster.url);
   const db = createDatabase(cluster.url, 10);
   await seedDemo(db);
-  const admin = DEMO_PEOPLE.find((p) => p.role === "admin")!;
-  const [adminRow] = await db.select().from(users).where(eq(users.email, admin.email));
-  const viewer = (await getViewer(db, adminRow.id))!;
 
   const targets = await loadTargets(db);
   const generated = await writeCheckCsv(csv, { rows: ROWS, targets, from: new Date("2024-12-02T06:00:00Z"), to: new Date("2026-11-25T18:00:00Z") });
@@ -59,26 +59,12 @@ try {
   const copyMs = performance.now() - copyStart;
   if (copied.status !== 0) throw new Error("psql \\copy failed");
 
-  const rssBefore = process.memoryUsage().rss;
-  peakRss = rssBefore;
-  const t0 = performance.now();
-  const id = await receiveUpload(db, viewer, { filename: "check-history.csv", body: createReadStream(csv) });
-  const uploadMs = performance.now() - t0;
-  const [row] = await db.select().from(imports).where(eq(imports.id, id));
-  const file = readStoredImport(row.mapping).file!;
-  await startImport(db, viewer, id, { mapping: suggestMapping(file.labels), unit: "g", timeZone: "site", mode: "all_or_nothing", delimiter: file.delimiter, encoding: file.encoding });
-  let validatedMs = 0;
-  const watch = setInterval(async () => {
-    const [r] = await db.select({ status: imports.status }).from(imports).where(eq(imports.id, id));
-    if (!validatedMs && r.status === "importing") validatedMs = performance.now() - t0;
-  }, 100);
-  await waitForImport(id);
-  clearInterval(watch);
-  const importMs = performance.now() - t0;
-  const [done] = await db.select().from(imports).where(eq(imports.id, id));
-  const [{ n }] = await db.select({ n: count() }).from(checks).where(eq(checks.importId, id));
-  const reasons = await db.select({ reason: importRowsRejected.reason, n: count() }).from(importRowsRejected).where(eq(importRowsRejected.importId, id)).groupBy(importRowsRejected.reason).orderBy(desc(count())).limit(5);
   await db.$client.end();
+
+  const child = spawnSync(process.execPath, [path.join(root, "node_modules/tsx/dist/cli.mjs"), path.join(root, "scripts/lib/bench-import-run.ts"), cluster.url, csv], { cwd: root, encoding: "utf8", stdio: ["ignore", "pipe", "inherit"], maxBuffer: 1 << 20 });
+  if (child.status !== 0) throw new Error("The import run failed; see above.");
+  const run = ImportRunSchema.parse(JSON.parse(child.stdout.trim().split("\n").at(-1) ?? "{}"));
+  const { uploadMs, validatedMs, importMs } = run;
 
   const copyRate = perSecond(ROWS, copyMs);
   const importRate = perSecond(ROWS, importMs);
@@ -88,13 +74,12 @@ try {
   console.log(`  upload to .data/uploads        ${(uploadMs / 1000).toFixed(2).padStart(10)}`);
   console.log(`  read, judge, COPY to stage     ${((validatedMs - uploadMs) / 1000).toFixed(2).padStart(10)}`);
   console.log(`  duplicates, insert, series     ${((importMs - validatedMs) / 1000).toFixed(2).padStart(10)}`);
-  console.log(`\nImport status ${done.status}: ${n.toLocaleString("en-GB")} checks written, ${done.rejectedRows} rejected, ${done.duplicateRows} duplicates.`);
-  for (const r of reasons) console.log(`  rejected ${r.n}×: ${r.reason}`);
+  console.log(`\nImport status ${run.status}: ${run.written.toLocaleString("en-GB")} checks written, ${run.rejected} rejected, ${run.duplicates} duplicates.`);
+  for (const r of run.reasons) console.log(`  reported ${r.n}×: ${r.reason}`);
   console.log(`Import rate / raw COPY rate: ${(importRate / copyRate).toFixed(3)} (target ≥ 0.333)`);
-  console.log(`Peak RSS of this process during the import: ${mb(peakRss)} (before it: ${mb(rssBefore)}; target < 300 MB)`);
+  console.log(`Peak RSS of the importing process: ${mb(run.maxRss)} (${mb(run.rssBefore)} once its modules were loaded; target < 300 MB)`);
   console.log(`File: ${mb((await stat(csv)).size)}`);
 } finally {
-  clearInterval(sampler);
   cluster.stop();
   removeCluster(path.join(work, "postgres"));
   await rm(work, { recursive: true, force: true });
