@@ -35,6 +35,8 @@ const ImportRunSchema = z.object({
   duplicates: z.number(),
   reasons: z.array(z.object({ reason: z.string(), n: z.number() })),
   rssBefore: z.number(),
+  peakReading: z.number(),
+  peakWriting: z.number(),
   maxRss: z.number(),
 });
 
@@ -77,7 +79,7 @@ try {
   console.log(`\nImport status ${run.status}: ${run.written.toLocaleString("en-GB")} checks written, ${run.rejected} rejected, ${run.duplicates} duplicates.`);
   for (const r of run.reasons) console.log(`  reported ${r.n}×: ${r.reason}`);
   console.log(`Import rate / raw COPY rate: ${(importRate / copyRate).toFixed(3)} (target ≥ 0.333)`);
-  console.log(`Peak RSS of the importing process: ${mb(run.maxRss)} (${mb(run.rssBefore)} once its modules were loaded; target < 300 MB)`);
+  console.log(`Peak RSS of the importing process: ${mb(run.maxRss)} (${mb(run.rssBefore)} once its modules were loaded; ${mb(run.peakReading)} while reading, ${mb(run.peakWriting)} while writing; target < 300 MB)`);
   console.log(`File: ${mb((await stat(csv)).size)}`);
 } finally {
   cluster.stop();

@@ -105,8 +105,9 @@ async function runImport(db: Database, client: PoolClient, run: ImportRun): Prom
   const rejections = new RejectionWriter(db, run.importId);
   const ctx = new ImportContext(db, run.viewer);
   const env: ValidationEnv = { settings: run.settings, columns: columnsOf(run.settings), importerId: run.viewer.id, now: run.now };
+  let outcome: Awaited<ReturnType<typeof commitStaged>>;
   try {
-    const outcome = await scoped.transaction(async (tx) => {
+    outcome = await scoped.transaction(async (tx) => {
       await tx.execute(sql`SET LOCAL work_mem = '128MB'`);
       await tx.execute(CREATE_STAGE);
       const copy = client.query(copyFrom(COPY_STAGE));
@@ -150,13 +151,15 @@ async function runImport(db: Database, client: PoolClient, run: ImportRun): Prom
       await progress.report({ status: "importing", bytesRead: bytes, totalRows: total, validRows: valid, rejectedRows: rejections.rows }, true);
       return commitStaged(db, tx, run, { total, valid, rejectedWhileReading: rejections.rows, instruments: seen });
     });
-    await outcome.afterCommit();
-    if (outcome.status === "done") await rm(uploadPath(run.upload), { force: true });
   } catch (error) {
     const known = error instanceof ImportFileError || error instanceof ImportConflict;
     if (!known) console.error(`Import ${run.importId} failed:`, error);
     const message = known ? error.message : "An unexpected error stopped the import; nothing was written. Try again, and tell your administrator if it keeps happening.";
     await db.update(imports).set({ status: "failed", finishedAt: new Date(), mapping: { upload: run.upload, file: run.file, settings: run.settings, error: message } }).where(eq(imports.id, run.importId));
     await rm(uploadPath(run.upload), { force: true });
+    return;
   }
+  // Committed: a mail or file-system hiccup from here on must not make the import look failed.
+  await outcome.afterCommit().catch((error: unknown) => console.error(`Import ${run.importId}: notifications not sent yet:`, error));
+  if (outcome.status === "done") await rm(uploadPath(run.upload), { force: true }).catch(() => undefined);
 }

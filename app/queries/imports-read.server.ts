@@ -9,7 +9,7 @@ import { readMarker } from "../lib/csv-guard";
 import { columnLabels, type ColumnMapping, type Delimiter, type Encoding } from "../lib/csv-mapping";
 import { columnLayout, linesSpanned, rawText, readRow, type ColumnLayout, type ReadRow } from "../lib/csv-row";
 
-const READ_CHUNK_BYTES = 512 * 1024;
+const READ_CHUNK_BYTES = 128 * 1024;
 
 export interface LineResult {
   line: number;

@@ -26,6 +26,12 @@ const [row] = await db.select().from(imports).where(eq(imports.id, id));
 const file = readStoredImport(row.mapping).file!;
 await startImport(db, viewer, id, { mapping: suggestMapping(file.labels), unit: "g", timeZone: "site", mode: "all_or_nothing", delimiter: file.delimiter, encoding: file.encoding });
 let validatedMs = 0;
+const peak = { reading: 0, writing: 0 };
+const sampler = setInterval(() => {
+  const rss = process.memoryUsage().rss;
+  if (validatedMs) peak.writing = Math.max(peak.writing, rss);
+  else peak.reading = Math.max(peak.reading, rss);
+}, 50);
 const watch = setInterval(() => {
   void db.select({ status: imports.status }).from(imports).where(eq(imports.id, id)).then(([r]) => {
     if (!validatedMs && r.status === "importing") validatedMs = performance.now() - t0;
@@ -33,10 +39,11 @@ const watch = setInterval(() => {
 }, 100);
 await waitForImport(id);
 clearInterval(watch);
+clearInterval(sampler);
 const importMs = performance.now() - t0;
 
 const [done] = await db.select().from(imports).where(eq(imports.id, id));
 const [{ written }] = await db.select({ written: count() }).from(checks).where(eq(checks.importId, id));
 const reasons = await db.select({ reason: importRowsRejected.reason, n: count() }).from(importRowsRejected).where(eq(importRowsRejected.importId, id)).groupBy(importRowsRejected.reason).orderBy(desc(count())).limit(5);
 await db.$client.end();
-console.log(JSON.stringify({ uploadMs, validatedMs, importMs, status: done.status, written, rejected: done.rejectedRows, duplicates: done.duplicateRows, reasons, rssBefore, maxRss: process.resourceUsage().maxRSS * 1024 }));
+console.log(JSON.stringify({ uploadMs, validatedMs, importMs, status: done.status, written, rejected: done.rejectedRows, duplicates: done.duplicateRows, reasons, rssBefore, peakReading: peak.reading, peakWriting: peak.writing, maxRss: process.resourceUsage().maxRSS * 1024 }));
