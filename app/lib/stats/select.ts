@@ -47,30 +47,46 @@ const scratch = new Scratch();
 /** The k-th and (k + 1)-th smallest (0-based; the second NaN past the end) of values[0..length), by counting into 1 024 equal-width buckets between the minimum and the maximum, then selecting within the one bucket that holds rank k; may reorder the values. */
 export function selectPairByBuckets(values: Float64Array, k: number, length = values.length): [number, number] {
   if (!(k >= 0 && k < length)) return [Number.NaN, Number.NaN];
+  // One loop per function: code compiled while a loop runs never meets the loops after it without type feedback.
+  const [low, high] = extent(values, length);
+  const scale = BUCKETS / (high - low);
+  if (length < 4 * BUCKETS || !Number.isFinite(scale)) return selectPairInPlace(values.subarray(0, length), k);
+  const counts = histogram(values, length, low, scale);
+  let bucket = 0;
+  let before = 0;
+  while (before + counts[bucket] <= k) before += counts[bucket++];
+  const inBucket = scratch.float64(0, counts[bucket]);
+  const next = gather(values, length, low, scale, bucket, inBucket);
+  const [a, b] = selectPairInPlace(inBucket, k - before);
+  return [a, Number.isNaN(b) && k + 1 < length ? next : b];
+}
+
+function extent(values: Float64Array, length: number): [number, number] {
   let low = Infinity;
   let high = -Infinity;
   for (let i = 0; i < length; i++) {
     low = Math.min(low, values[i]);
     high = Math.max(high, values[i]);
   }
-  const scale = BUCKETS / (high - low);
-  if (length < 4 * BUCKETS || !Number.isFinite(scale)) return selectPairInPlace(values.subarray(0, length), k);
+  return [low, high];
+}
+
+function histogram(values: Float64Array, length: number, low: number, scale: number): Int32Array {
   const counts = scratch.int32(0, BUCKETS).fill(0);
   for (let i = 0; i < length; i++) counts[Math.min(BUCKETS - 1, ((values[i] - low) * scale) | 0)]++;
-  let bucket = 0;
-  let before = 0;
-  while (before + counts[bucket] <= k) before += counts[bucket++];
-  const inBucket = scratch.float64(0, counts[bucket]);
-  // The next rank may sit in a later bucket: keep the smallest value above this bucket too.
+  return counts;
+}
+
+/** Copies the values of one bucket into `into`; returns the smallest value of the later buckets (the next rank may sit there). */
+function gather(values: Float64Array, length: number, low: number, scale: number, bucket: number, into: Float64Array): number {
   let size = 0;
   let next = Infinity;
   for (let i = 0; i < length; i++) {
     const b = Math.min(BUCKETS - 1, ((values[i] - low) * scale) | 0);
-    if (b === bucket) inBucket[size++] = values[i];
+    if (b === bucket) into[size++] = values[i];
     else if (b > bucket && values[i] < next) next = values[i];
   }
-  const [a, b] = selectPairInPlace(inBucket.subarray(0, size), k - before);
-  return [a, Number.isNaN(b) && k + 1 < length ? next : b];
+  return next;
 }
 
 /** The k-th and (k + 1)-th smallest of values by quickselect (the second NaN past the end); reorders the array. */

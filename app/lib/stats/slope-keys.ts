@@ -44,9 +44,14 @@ export class SlopeKeys {
 
   /** Inversions of y − θx, that is the slopes below θ up to the margin, with the sorted order in `into`. */
   countBelow(theta: number, into: Int32Array): number {
+    this.keysAt(theta);
+    return inversionCounter(this.n).sortCountingInversions(this.keys, this.n, into);
+  }
+
+  /** The keys y − θx, or −x for θ = ∞ (a loop of its own, compiled apart from its callers' loops). */
+  private keysAt(theta: number): void {
     const { xs, ys, keys, n } = this;
-    for (let i = 0; i < n; i++) keys[i] = ys[i] - theta * xs[i];
-    return inversionCounter(n).sortCountingInversions(keys, n, into);
+    for (let i = 0; i < n; i++) keys[i] = theta === Infinity ? -xs[i] : ys[i] - theta * xs[i];
   }
 
   /**
@@ -66,7 +71,7 @@ export class SlopeKeys {
    */
   list(order: Int32Array, theta: number, low: number, high: number, limit: number): Listing {
     const { xs, ys, n, keys } = this;
-    for (let i = 0; i < n; i++) keys[i] = theta === Infinity ? -xs[i] : ys[i] - theta * xs[i];
+    this.keysAt(theta);
     let out = listBuffer;
     let swaps = 0;
     let below = 0;
