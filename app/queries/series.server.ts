@@ -1,8 +1,9 @@
 // One instrument's series for the drift study: stages split at resetting events, limits per stage from its own
 // baseline, per-point signals, and the trend, forecast and interval review of the current stage.
-import { and, asc, eq, inArray, isNull, lt } from "drizzle-orm";
-import { checks, instrumentEvents, pointAnnotations, users } from "../../db/schema";
+import { asc, eq, sql } from "drizzle-orm";
+import { instrumentEvents } from "../../db/schema";
 import type { CheckType } from "../../db/schema/enums";
+import type { Outcome } from "../lib/stats/requirement";
 import type { DbOrTx } from "../lib/db.server";
 import { analyzeSeries } from "../lib/stats/analyze";
 import { reviewInterval } from "../lib/stats/interval-review";
@@ -13,61 +14,95 @@ import type { InstrumentDetail } from "./instruments.server";
 const DAY = 86_400_000;
 const RESETTING = new Set(["calibration", "adjustment", "repair", "relocation"]);
 
-/** Every point up to `to`: a stage's baseline is its first points, even when the view starts later. */
-async function loadPoints(db: DbOrTx, instrumentId: number, type: CheckType, to: Date) {
-  const rows = await db
-    .select({ checkId: checks.id, at: checks.performedAt, value: checks.resultG, outcome: checks.outcome, toleranceG: checks.toleranceG, acceptanceG: checks.acceptanceG, details: checks.details, operator: users.name })
-    .from(checks)
-    .innerJoin(users, eq(users.id, checks.operatorId))
-    .where(and(eq(checks.instrumentId, instrumentId), eq(checks.checkType, type), isNull(checks.supersededAt), lt(checks.performedAt, to)))
-    .orderBy(asc(checks.performedAt), asc(checks.id));
-  const ids = rows.map((r) => r.checkId);
-  const notes = ids.length
-    ? await db.select({ checkId: pointAnnotations.checkId, excluded: pointAnnotations.excluded, reason: pointAnnotations.reason }).from(pointAnnotations).where(and(inArray(pointAnnotations.checkId, ids), isNull(pointAnnotations.withdrawnAt)))
-    : [];
-  return rows.map((r) => {
-    const own = notes.filter((n) => n.checkId === r.checkId);
-    return { ...r, excluded: own.some((n) => n.excluded), annotations: own.map((n) => n.reason) };
-  });
+interface SeriesRow {
+  checkId: number;
+  atMs: number;
+  value: number;
+  outcome: Outcome;
+  toleranceG: number | null;
+  acceptanceG: number | null;
+  details: Record<string, number | string | boolean | null> | null;
+  operator: string;
+  excluded: boolean;
+  annotations: string[];
+}
+
+/**
+ * Every point up to `to`: a stage's baseline is its first points, even when the view starts later.
+ * One statement with the annotations aggregated per check, and times as epoch milliseconds: a three-year series
+ * is a thousand rows, and building Date objects and mapping columns row by row cost more than the query itself.
+ */
+async function loadPoints(db: DbOrTx, instrumentId: number, type: CheckType, to: Date): Promise<SeriesRow[]> {
+  const result = await db.execute<Record<string, unknown>>(sql`
+    select c.id, extract(epoch from c.performed_at) * 1000 as at_ms, c.result_g, c.outcome, c.tolerance_g, c.acceptance_g, c.details, u.name as operator,
+      coalesce(a.excluded, false) as excluded, coalesce(a.reasons, '{}') as reasons
+    from checks c
+    join users u on u.id = c.operator_id
+    left join lateral (
+      select bool_or(pa.excluded) as excluded, array_agg(pa.reason order by pa.id) as reasons
+      from point_annotations pa where pa.check_id = c.id and pa.withdrawn_at is null
+    ) a on true
+    where c.instrument_id = ${instrumentId} and c.check_type = ${type} and c.superseded_at is null and c.performed_at < ${to.toISOString()}::timestamptz
+    order by c.performed_at, c.id`);
+  return result.rows.map((r) => ({
+    checkId: Number(r.id),
+    atMs: Number(r.at_ms),
+    value: r.result_g as number,
+    outcome: r.outcome as Outcome,
+    toleranceG: r.tolerance_g as number | null,
+    acceptanceG: r.acceptance_g as number | null,
+    details: r.details as SeriesRow["details"],
+    operator: r.operator as string,
+    excluded: r.excluded as boolean,
+    annotations: r.reasons as string[],
+  }));
 }
 
 /** Sensitivity errors are signed; repeatability and eccentricity results are sizes with an upper limit only. */
 const isTwoSided = (type: CheckType) => type === "sensitivity";
 
 export async function getInstrumentSeries(db: DbOrTx, instrument: InstrumentDetail, type: CheckType, range: { from: Date | null; to: Date }, now: Date) {
-  const events = await db.select({ id: instrumentEvents.id, at: instrumentEvents.occurredAt, kind: instrumentEvents.kind, note: instrumentEvents.note }).from(instrumentEvents).where(eq(instrumentEvents.instrumentId, instrument.id)).orderBy(asc(instrumentEvents.occurredAt));
-  const all = await loadPoints(db, instrument.id, type, range.to);
-  const resets = events.filter((e) => RESETTING.has(e.kind)).map((e) => e.at);
-  const stageOf = (at: Date) => resets.filter((r) => r < at).length;
+  const [events, all, plan] = await Promise.all([
+    db.select({ id: instrumentEvents.id, at: instrumentEvents.occurredAt, kind: instrumentEvents.kind, note: instrumentEvents.note }).from(instrumentEvents).where(eq(instrumentEvents.instrumentId, instrument.id)).orderBy(asc(instrumentEvents.occurredAt)),
+    loadPoints(db, instrument.id, type, range.to),
+    findPlan(db, instrument.id, type),
+  ]);
+  const resets = events.filter((e) => RESETTING.has(e.kind)).map((e) => e.at.getTime());
   const last = all.at(-1);
   const tolerance = last?.toleranceG ?? null;
   const acceptance = last?.acceptanceG ?? null;
   const band = tolerance === null ? undefined : { upper: tolerance, ...(isTwoSided(type) ? { lower: -tolerance } : {}), guardBand: tolerance - (acceptance ?? tolerance) };
+  const iso = (ms: number) => new Date(ms).toISOString();
 
   const stages = [];
   const points = [];
   let current: ReturnType<typeof analyzeSeries> | null = null;
-  let currentPoints: typeof all = [];
+  let currentPoints: SeriesRow[] = [];
+  // Points come in time order, so each stage is the next run of points before the next resetting event.
+  let next = 0;
   for (let s = 0; s <= resets.length; s++) {
-    const members = all.filter((p) => stageOf(p.at) === s);
+    const members: SeriesRow[] = [];
+    while (next < all.length && (s === resets.length || all[next].atMs <= resets[s])) members.push(all[next++]);
     if (!members.length) continue;
     const kept = members.filter((p) => !p.excluded);
-    const analysis = kept.length ? analyzeSeries({ values: kept.map((p) => p.value), times: kept.map((p) => p.at.toISOString()), resolution: Number(instrument.readabilityG), tolerance: band }) : null;
-    const stageFrom = s === 0 ? members[0].at : resets[s - 1];
-    const stageTo = s < resets.length ? resets[s] : range.to;
-    stages.push({ index: s, from: stageFrom.toISOString(), to: stageTo.toISOString(), baseline: analysis?.baseline ?? null, limits: analysis?.limits ?? null, baselineEndsAt: analysis?.baseline ? kept[analysis.baseline.count - 1]?.at.toISOString() ?? null : null, warnings: analysis?.warnings ?? [] });
+    const analysis = kept.length ? analyzeSeries({ values: kept.map((p) => p.value), timesMs: kept.map((p) => p.atMs), resolution: Number(instrument.readabilityG), tolerance: band }) : null;
+    const stageFrom = s === 0 ? members[0].atMs : resets[s - 1];
+    const stageTo = s < resets.length ? resets[s] : range.to.getTime();
+    const baselineEnd = analysis?.baseline ? kept[analysis.baseline.count - 1] : undefined;
+    stages.push({ index: s, from: iso(stageFrom), to: iso(stageTo), baseline: analysis?.baseline ?? null, limits: analysis?.limits ?? null, baselineEndsAt: baselineEnd ? iso(baselineEnd.atMs) : null, warnings: analysis?.warnings ?? [] });
     let k = 0;
+    // Only the newest point carries the engine's details (the pan drawing needs them); on every point they would
+    // triple the payload of a three-year series.
     for (const p of members) {
       const analyzed = p.excluded ? null : analysis?.points[k++];
-      points.push({ checkId: p.checkId, at: p.at.toISOString(), value: p.value, outcome: p.outcome, excluded: p.excluded, annotations: p.annotations, operator: p.operator, stage: s, signals: analyzed?.signals ?? [], ewma: analyzed?.ewma ?? null, ewmaUcl: analyzed?.ewmaUcl ?? null, ewmaLcl: analyzed?.ewmaLcl ?? null, cusumHigh: analyzed?.cusumHigh ?? null, cusumLow: analyzed?.cusumLow ?? null, details: p.details });
+      points.push({ checkId: p.checkId, at: iso(p.atMs), value: p.value, outcome: p.outcome, excluded: p.excluded, annotations: p.annotations, operator: p.operator, stage: s, signals: analyzed?.signals ?? [], ewma: analyzed?.ewma ?? null, ewmaUcl: analyzed?.ewmaUcl ?? null, ewmaLcl: analyzed?.ewmaLcl ?? null, cusumHigh: analyzed?.cusumHigh ?? null, cusumLow: analyzed?.cusumLow ?? null, details: p === last ? p.details : null });
     }
     if (s === resets.length || members.at(-1) === last) {
       current = analysis;
       currentPoints = kept;
     }
   }
-  const signalMessages = current?.signals.map((sig) => ({ ...sig, checkId: currentPoints[sig.index]?.checkId ?? null, at: currentPoints[sig.index]?.at.toISOString() ?? null })) ?? [];
-  const plan = await findPlan(db, instrument.id, type);
+  const signalMessages = current?.signals.map((sig) => ({ ...sig, checkId: currentPoints[sig.index]?.checkId ?? null, at: currentPoints[sig.index] ? iso(currentPoints[sig.index].atMs) : null })) ?? [];
   const toleranceAt = current?.forecast?.earliestToleranceAt ?? current?.forecast?.toleranceAt ?? null;
   const review = plan
     ? reviewInterval({
@@ -99,12 +134,12 @@ export async function getInstrumentSeries(db: DbOrTx, instrument: InstrumentDeta
 export type InstrumentSeries = Awaited<ReturnType<typeof getInstrumentSeries>>;
 
 /** The fitted line and its 95 % prediction band over the current stage and `aheadDays` beyond it, for drawing. */
-function trendBand(points: { at: Date; value: number }[], aheadDays: number) {
+function trendBand(points: { atMs: number; value: number }[], aheadDays: number) {
   if (points.length < 3) return [];
-  const t0 = points[0].at.getTime();
-  const fit = fitLine(points.map((p) => (p.at.getTime() - t0) / DAY), points.map((p) => p.value));
+  const t0 = points[0].atMs;
+  const fit = fitLine(points.map((p) => (p.atMs - t0) / DAY), points.map((p) => p.value));
   if (!fit || !(fit.pValue < 0.05)) return [];
-  const end = (points.at(-1)!.at.getTime() - t0) / DAY + aheadDays;
+  const end = (points.at(-1)!.atMs - t0) / DAY + aheadDays;
   return Array.from({ length: 25 }, (_, i) => {
     const x = (end * i) / 24;
     const half = predictionHalfWidth(fit, x);
