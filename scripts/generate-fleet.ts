@@ -49,13 +49,16 @@ export async function generateFleet(adminUrl: string) {
         const at = new Date(END - ago * DAY).toISOString();
         const base = plan.check_type === "sensitivity" ? 0.00008 * normal(random) + drift * (DAYS - ago) : Math.abs(0.00005 + 0.00001 * normal(random));
         const outcome = Math.abs(base) <= (2 / 3) * tol ? "in_tolerance" : Math.abs(base) <= tol ? "guard_band" : "out_of_tolerance";
-        chunk += `${plan.instrument_id}\t${plan.check_type}\t${plan.id}\t1\t${at}\tg\t${base}\t${tol}\t${(2 / 3) * tol}\t${outcome}\timport\n`;
+        // One reading per check, the 200 g load plus the error, as a balance with d = 0.1 mg shows it.
+        const reading = (200 + base).toFixed(4);
+        chunk += `${plan.instrument_id}\t${plan.check_type}\t${plan.id}\t1\t${at}\tg\t${base}\t${tol}\t${(2 / 3) * tol}\t${outcome}\timport\t${reading}\n`;
       }
       yield chunk;
     }
   }
-  await pipeline(Readable.from(lines()), client.query(copyFrom("copy checks (instrument_id, check_type, plan_id, operator_id, performed_at, unit, result_g, tolerance_g, acceptance_g, outcome, source) from stdin")));
-  await client.query("insert into check_readings (check_id, ordinal, value) select id, 1, round((200 + result_g)::numeric, 4) from checks");
+  await pipeline(Readable.from(lines()), client.query(copyFrom("copy checks (instrument_id, check_type, plan_id, operator_id, performed_at, unit, result_g, tolerance_g, acceptance_g, outcome, source, readings_entered) from stdin")));
+  // The readings rows from the same text the checks carry, so the two can never disagree.
+  await client.query("insert into check_readings (check_id, ordinal, value) select id, 1, readings_entered::numeric from checks");
   await client.query("analyze");
   await client.end();
   const db = createDatabase(url, 2);

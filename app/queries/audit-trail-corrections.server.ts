@@ -14,6 +14,7 @@ import { dedupeKey } from "./checks.server";
 import { applyConsequences } from "./consequences.server";
 import { getInstrumentPage } from "./instruments.server";
 import { refreshSeriesSummary } from "./series-summary.server";
+import { readingsEnteredSql } from "./readings-entered.server";
 
 export async function getCheckForCorrection(db: DbOrTx, viewer: Viewer, checkId: number) {
   const [check] = Number.isSafeInteger(checkId) && checkId > 0 ? await db.select().from(checks).where(eq(checks.id, checkId)) : [];
@@ -69,6 +70,7 @@ export async function correctCheck(db: Database, viewer: Viewer, params: { check
         note: original.note,
         correctsCheckId: original.id,
         correctionReason: params.reason.trim(),
+        readingsEntered: readingsEnteredSql(parsed.readings),
       })
       .returning();
     await tx.insert(checkReadings).values(parsed.readings.map((r, i) => ({ checkId: row.id, ordinal: i + 1, position: r.position, value: r.entered })));

@@ -15,6 +15,7 @@ import { findPlan, findWeight, instrumentSpec, isTrained, planWeights, requireme
 import { applyConsequences, type Consequences } from "./consequences.server";
 import { notifyDrift, previousSummary } from "./drift-notices.server";
 import { refreshSeriesSummary } from "./series-summary.server";
+import { readingsEnteredSql } from "./readings-entered.server";
 
 export interface CheckSubmission {
   instrument: { id: number } | { assetTag: string };
@@ -132,6 +133,7 @@ export async function recordCheck(db: Database, viewer: Viewer, submission: Chec
         requestHash: hash,
         dedupeKey: key,
         note: submission.note ?? "",
+        readingsEntered: readingsEnteredSql(parsed.readings),
       })
       .returning();
     await tx.insert(checkReadings).values(parsed.readings.map((r, i) => ({ checkId: row.id, ordinal: i + 1, position: r.position, value: r.entered })));

@@ -1,4 +1,6 @@
-// The check export as one parameterised query, streamed from a cursor so memory stays flat at any size.
+// The check export as one query whose rows are already the CSV cells, so PostgreSQL's COPY … TO STDOUT writes the
+// file and the app only passes the bytes on: memory stays flat and the app adds next to nothing to the database's
+// own speed (docs/decisions/011).
 import type { ExportParams } from "../lib/export-params";
 import { visibleSiteIds, type Viewer } from "../lib/permissions";
 
@@ -40,27 +42,54 @@ export function exportCountQuery(viewer: Viewer, params: ExportParams): ExportQu
   return { text: `select count(*)::int as n ${FROM} where ${where}`, values };
 }
 
+/**
+ * A text cell a spreadsheet would run as a formula (= + - @, a tab or a carriage return first) gets an apostrophe in
+ * front. Only free text goes through it: numbers are written as numbers, so a negative error stays a number.
+ */
+const neutralised = (expr: string) => `case when ${expr} ~ '^[=+@\\t\\r-]' then '''' || ${expr} else ${expr} end`;
+
+/** The cells in EXPORT_HEADER order. Times are ISO 8601 (UTC with milliseconds, and the site's wall clock). */
+const CELLS = [
+  "c.id",
+  neutralised("i.asset_tag"),
+  neutralised("s.code"),
+  "c.check_type",
+  `to_char(c.performed_at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`,
+  `to_char(c.performed_at at time zone s.time_zone, 'YYYY-MM-DD"T"HH24:MI:SS')`,
+  "s.time_zone",
+  "c.result_g",
+  "c.tolerance_g",
+  "c.acceptance_g",
+  "c.outcome",
+  "c.expanded_uncertainty_g",
+  // The copy kept on the check; a row written before it existed falls back to the readings themselves.
+  neutralised("coalesce(c.readings_entered, (select string_agg(coalesce(r.position::text || '=', '') || r.value::text, ' ' order by r.ordinal) from check_readings r where r.check_id = c.id))"),
+  "c.unit",
+  neutralised("w.identifier"),
+  "w.conventional_mass_g",
+  neutralised("u.name"),
+  "c.source",
+  "case when ex.check_id is null then 'no' else 'yes' end",
+  neutralised("nullif(c.note, '')"),
+];
+
 export function exportRowsQuery(viewer: Viewer, params: ExportParams): ExportQuery {
   const { values, where } = filters(viewer, params);
   return {
-    text: `select c.id, i.asset_tag, s.code as site, c.check_type, c.performed_at,
-        to_char(c.performed_at at time zone s.time_zone, 'YYYY-MM-DD"T"HH24:MI:SS') as performed_local, s.time_zone,
-        c.result_g, c.tolerance_g, c.acceptance_g, c.outcome, c.expanded_uncertainty_g,
-        (select string_agg(coalesce(r.position::text || '=', '') || r.value::text, ' ' order by r.ordinal) from check_readings r where r.check_id = c.id) as readings,
-        c.unit, w.identifier as weight, w.conventional_mass_g, u.name as operator, c.source,
-        exists (select 1 from point_annotations a where a.check_id = c.id and a.excluded and a.withdrawn_at is null) as excluded, c.note
+    // Exclusions are few: one hashed set beats a lookup per exported row.
+    text: `select ${CELLS.join(", ")}
       ${FROM} join users u on u.id = c.operator_id left join test_weights w on w.id = c.weight_id
+      left join (select distinct check_id from point_annotations where excluded and withdrawn_at is null) ex on ex.check_id = c.id
       where ${where} order by c.performed_at, c.id`,
     values,
   };
 }
 
-/** One CSV row's cells in header order; numbers stay numbers, times are ISO 8601. */
-export function exportCells(row: Record<string, unknown>): (string | number | null)[] {
-  const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
-  return [
-    Number(row.id), String(row.asset_tag), String(row.site), String(row.check_type), new Date(row.performed_at as string).toISOString(), String(row.performed_local), String(row.time_zone),
-    num(row.result_g), num(row.tolerance_g), num(row.acceptance_g), String(row.outcome), num(row.expanded_uncertainty_g), (row.readings as string | null) ?? "", String(row.unit),
-    (row.weight as string | null) ?? "", row.conventional_mass_g === null ? null : String(row.conventional_mass_g), String(row.operator), String(row.source), row.excluded ? "yes" : "no", String(row.note ?? ""),
-  ];
+/** COPY takes no parameters, so the values go in as quoted literals (escaped by the driver's own quoting). */
+export function exportCopyStatement(viewer: Viewer, params: ExportParams, escapeLiteral: (value: string) => string): string {
+  const { text, values } = exportRowsQuery(viewer, params);
+  const literal = (v: unknown) => (Array.isArray(v) ? `${escapeLiteral(`{${v.map(Number).join(",")}}`)}` : escapeLiteral(String(v)));
+  // One pass over the query's own text: a value is never scanned again, so a "$1" typed in a filter stays text.
+  const inlined = text.replace(/\$(\d+)/g, (_, n: string) => literal(values[Number(n) - 1]));
+  return `copy (${inlined}) to stdout with (format csv)`;
 }

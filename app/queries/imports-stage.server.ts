@@ -98,9 +98,9 @@ export async function insertStaged(tx: Transaction, importId: number): Promise<n
   const result = await tx.execute<{ checks: number }>(sql`
     WITH inserted AS (
       INSERT INTO checks (instrument_id, check_type, plan_id, weight_id, operator_id, performed_at, unit, result_g, expanded_uncertainty_g,
-                          tolerance_g, acceptance_g, outcome, basis, details, source, dedupe_key, import_id, note)
+                          tolerance_g, acceptance_g, outcome, basis, details, source, dedupe_key, import_id, note, readings_entered)
       SELECT instrument_id, check_type, plan_id, weight_id, operator_id, performed_at, unit, result_g, expanded_uncertainty_g,
-             tolerance_g, acceptance_g, outcome, basis, details, 'import', dedupe_key, ${importId}, note
+             tolerance_g, acceptance_g, outcome, basis, details, 'import', dedupe_key, ${importId}, note, readings_as_entered(readings, positions::text[])
       FROM import_stage
       ORDER BY instrument_id, check_type, performed_at
       ON CONFLICT (dedupe_key) DO NOTHING

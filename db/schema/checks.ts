@@ -84,6 +84,10 @@ export const checks = pgTable(
     requestHash: text(),
     importId: integer(),
     note: text().notNull().default(""),
+    // The readings as entered, in order, space-separated ("position=value" for eccentricity), written with the check by
+    // readings_as_entered() from the same values as check_readings. A copy, so an export of a million checks needs no
+    // lookup per row (docs/decisions/011); check_readings stays the record.
+    readingsEntered: text(),
     // A correction is a new row pointing at the one it replaces; the old row is kept.
     correctsCheckId: bigint({ mode: "number" }),
     correctionReason: text(),

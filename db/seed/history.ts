@@ -12,6 +12,7 @@ import { refreshSeriesSummary } from "../../app/queries/series-summary.server";
 import { checkPlans, checkPlanWeights, checkReadings, checks, instrumentEvents, instruments, memberships, testWeights, users } from "../schema";
 import { normal } from "./random";
 import { REFERENCE_DATE } from "./random";
+import { readingsEnteredSql } from "../../app/queries/readings-entered.server";
 
 export const DRIFT_STORY = "AVP-AB-01";
 export const REPEATABILITY_STORY = "AVP-SM-02";
@@ -132,7 +133,7 @@ export async function seedHistory(tx: Transaction, random: () => number) {
 
   for (let i = 0; i < rows.length; i += 500) {
     const batch = rows.slice(i, i + 500);
-    const ids = await tx.insert(checks).values(batch.map((r) => r.values)).returning({ id: checks.id });
+    const ids = await tx.insert(checks).values(batch.map((r) => ({ ...r.values, readingsEntered: readingsEnteredSql(r.readings) }))).returning({ id: checks.id });
     await tx.insert(checkReadings).values(batch.flatMap((r, j) => r.readings.map((reading, k) => ({ checkId: ids[j].id, ordinal: k + 1, position: reading.position, value: reading.entered }))));
   }
   for (const plan of plans) await refreshSeriesSummary(tx, plan.instrumentId, plan.checkType, REFERENCE_DATE);
