@@ -19,6 +19,8 @@ export interface FleetRow {
   lastCheckAt: string | null;
   nextDueAt: string | null;
   overdue: boolean;
+  /** Check types past their due day in the site's calendar. */
+  overdueChecks: number;
   inTolerance90: number;
   guardBand90: number;
   outOfTolerance90: number;
@@ -58,10 +60,16 @@ export async function listFleet(db: Database, viewer: Viewer, params: FleetParam
   const dir = params.dir === "desc" ? sql`desc` : sql`asc`;
   const result = await db.execute(sql`
     with due as (
-      select instrument_id, max(last_check_at) as last_check_at, min(next_due_at) as next_due_at,
+      -- Overdue in the site's own days, as on the schedule: due on the local day of the last check plus the interval,
+      -- overdue from the day after (an instrument out of service is not counted: it cannot be checked until released).
+      select ss.instrument_id, max(ss.last_check_at) as last_check_at, min(ss.next_due_at) as next_due_at,
+             count(distinct ss.check_type) filter (where i.status = 'in_service' and (ss.next_due_at at time zone st.time_zone)::date < (${now.toISOString()}::timestamptz at time zone st.time_zone)::date) as overdue_checks,
              coalesce(jsonb_agg(distinct sig) filter (where sig is not null), '[]'::jsonb) as signals
-      from series_summaries left join lateral jsonb_array_elements_text(active_signals) as sig on true
-      group by instrument_id
+      from series_summaries ss
+      join instruments i on i.id = ss.instrument_id
+      join sites st on st.id = i.site_id
+      left join lateral jsonb_array_elements_text(ss.active_signals) as sig on true
+      group by ss.instrument_id
     ), outcomes as (
       select instrument_id,
              count(*) filter (where outcome = 'in_tolerance') as in90,
@@ -71,7 +79,7 @@ export async function listFleet(db: Database, viewer: Viewer, params: FleetParam
     ), rows as (
       select i.id, i.asset_tag, i.kind, i.status, i.site_id, s.code as site_code, s.time_zone, r.name as room_name,
              i.readability_g, i.smallest_net_weight_g,
-             due.last_check_at, due.next_due_at, coalesce(due.signals, '[]'::jsonb) as signals,
+             due.last_check_at, due.next_due_at, coalesce(due.overdue_checks, 0) as overdue_checks, coalesce(due.signals, '[]'::jsonb) as signals,
              jsonb_array_length(coalesce(due.signals, '[]'::jsonb)) as signal_count,
              coalesce(o.in90, 0) as in90, coalesce(o.guard90, 0) as guard90, coalesce(o.out90, 0) as out90,
              (t.trend->>'slope')::float8 * 30 / nullif((t.trend->>'toleranceG')::float8, 0) * 100 as drift,
@@ -92,7 +100,7 @@ export async function listFleet(db: Database, viewer: Viewer, params: FleetParam
       where ${where}
     )
     select * from rows
-    where ${params.overdue ? sql`next_due_at <= ${now}` : sql`true`}
+    where ${params.overdue ? sql`overdue_checks > 0` : sql`true`}
     order by ${ORDER[params.sort]} ${dir} nulls last, asset_tag asc`);
   return result.rows.map((r) => {
     const row = r as Record<string, unknown>;
@@ -110,7 +118,8 @@ export async function listFleet(db: Database, viewer: Viewer, params: FleetParam
       smallestNetWeightG: (row.smallest_net_weight_g as string | null) ?? null,
       lastCheckAt: iso(row.last_check_at),
       nextDueAt: iso(row.next_due_at),
-      overdue: row.next_due_at ? new Date(row.next_due_at as string).getTime() <= now.getTime() : false,
+      overdue: Number(row.overdue_checks) > 0,
+      overdueChecks: Number(row.overdue_checks),
       inTolerance90: Number(row.in90),
       guardBand90: Number(row.guard90),
       outOfTolerance90: Number(row.out90),
@@ -134,7 +143,7 @@ export function compareSites(rows: FleetRow[]) {
     s.checks90 += r.inTolerance90 + r.guardBand90 + r.outOfTolerance90;
     s.inTolerance90 += r.inTolerance90;
     s.failures90 += r.outOfTolerance90;
-    s.overdue += r.overdue ? 1 : 0;
+    s.overdue += r.overdueChecks;
     s.withSignals += r.activeSignals.length ? 1 : 0;
     s.outOfService += r.status === "out_of_service" ? 1 : 0;
     bySite.set(r.siteCode, s);

@@ -22,25 +22,32 @@ export interface ScheduledPlan {
 }
 
 /** Valid = not superseded by a correction, not excluded, and not out of tolerance (a failed check does not count as done). */
-function lastValidChecks(db: DbOrTx) {
+/**
+ * The newest valid check of one plan's series (not superseded, not out of tolerance, not excluded): looked up per
+ * plan on the series index, newest first, so the cost follows the number of plans, not the length of the history.
+ */
+function lastValidCheck(db: DbOrTx) {
   return db
-    .selectDistinctOn([checks.instrumentId, checks.checkType], { instrumentId: checks.instrumentId, checkType: checks.checkType, lastAt: checks.performedAt })
+    .select({ lastAt: checks.performedAt })
     .from(checks)
     .where(
       and(
+        eq(checks.instrumentId, checkPlans.instrumentId),
+        eq(checks.checkType, checkPlans.checkType),
         isNull(checks.supersededAt),
         ne(checks.outcome, "out_of_tolerance"),
         notExists(db.select({ one: sql`1` }).from(pointAnnotations).where(and(eq(pointAnnotations.checkId, checks.id), eq(pointAnnotations.excluded, true), isNull(pointAnnotations.withdrawnAt)))),
       ),
     )
-    .orderBy(checks.instrumentId, checks.checkType, desc(checks.performedAt))
+    .orderBy(desc(checks.performedAt))
+    .limit(1)
     .as("last_valid");
 }
 
 /** Active plans on in-service instruments at the viewer's sites (or one site), each with its due state at `now`. */
 export async function listPlanSchedule(db: DbOrTx, viewer: Viewer | null, now: Date, filter: { siteId?: number; instrumentId?: number } = {}): Promise<ScheduledPlan[]> {
   const ids = viewer ? visibleSiteIds(viewer) : null;
-  const last = lastValidChecks(db);
+  const last = lastValidCheck(db);
   const rows = await db
     .select({
       planId: checkPlans.id,
@@ -60,7 +67,7 @@ export async function listPlanSchedule(db: DbOrTx, viewer: Viewer | null, now: D
     .innerJoin(instruments, eq(instruments.id, checkPlans.instrumentId))
     .innerJoin(sites, eq(sites.id, instruments.siteId))
     .leftJoin(rooms, eq(rooms.id, instruments.roomId))
-    .leftJoin(last, and(eq(last.instrumentId, checkPlans.instrumentId), eq(last.checkType, checkPlans.checkType)))
+    .leftJoinLateral(last, sql`true`)
     .where(
       and(
         eq(checkPlans.active, true),

@@ -5,6 +5,7 @@ import { db } from "../../app/lib/db.server";
 import { annotateCheck } from "../../app/queries/annotations.server";
 import { recordCheck } from "../../app/queries/checks.server";
 import { getViewer } from "../../app/queries/people.server";
+import { listPlanSchedule } from "../../app/queries/schedule.server";
 import type { InstrumentSeries } from "../../app/queries/series.server";
 import type { FleetRow } from "../../app/queries/fleet-overview.server";
 import * as exportCsv from "../../app/routes/api/export-checks";
@@ -94,6 +95,16 @@ describe("GET /api/v1/fleet", () => {
     expect(rows.find((r) => r.assetTag === "LNT-PB-01")!.overdue).toBe(true);
     expect(sites.map((s) => s.site)).toEqual(["AVP", "LNT", "QNW"]);
     expect(sites.reduce((n, s) => n + s.instruments, 0)).toBe(rows.length);
+  });
+
+  it("counts overdue plans in the site's own days, exactly as the schedule does", async () => {
+    const viewer = (await getViewer(db(), (await db().select().from(users).where(eq(users.email, SITE_MANAGER)))[0].id))!;
+    const { rows, sites } = (await run(fleetApi.loader, request("/api/v1/fleet", { cookie: cookies[SITE_MANAGER] }))).body as { rows: FleetRow[]; sites: { site: string; overdue: number }[] };
+    const schedule = await listPlanSchedule(db(), viewer, new Date());
+    const overdue = (match: (p: (typeof schedule)[number]) => boolean) => schedule.filter((p) => match(p) && p.due.state === "overdue").length;
+    expect(rows.some((r) => r.overdueChecks > 0)).toBe(true);
+    for (const row of rows.filter((r) => r.status === "in_service")) expect({ tag: row.assetTag, overdue: row.overdueChecks }).toEqual({ tag: row.assetTag, overdue: overdue((p) => p.instrumentId === row.id) });
+    for (const site of sites) expect({ site: site.site, overdue: site.overdue }).toEqual({ site: site.site, overdue: overdue((p) => p.siteCode === site.site) });
   });
 
   it("shows only the viewer's sites and refuses a technician", async () => {

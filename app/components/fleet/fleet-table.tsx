@@ -63,7 +63,7 @@ export function FleetTable({ rows, params, now }: { rows: FleetRow[]; params: Fl
               <td className="px-3 py-2"><StatusBadge status={r.status} /></td>
               <td className="num px-3 py-2 whitespace-nowrap">{r.lastCheckAt ? formatDay(r.lastCheckAt, r.timeZone) : "Never"}</td>
               <td className="num px-3 py-2 whitespace-nowrap">
-                {r.nextDueAt ? (r.overdue ? <strong className="text-out">Overdue since {formatDay(r.nextDueAt, r.timeZone)}</strong> : formatDay(r.nextDueAt, r.timeZone)) : "—"}
+                {r.nextDueAt ? (r.overdue ? <strong className="text-out">Overdue: was due {formatDay(r.nextDueAt, r.timeZone)}</strong> : formatDay(r.nextDueAt, r.timeZone)) : "—"}
               </td>
               <td className="px-3 py-2 text-xs"><Outcomes row={r} /></td>
               <td className="num px-3 py-2 text-right whitespace-nowrap">{r.driftPercentPer30Days === null ? "—" : `${r.driftPercentPer30Days >= 0 ? "+" : ""}${r.driftPercentPer30Days.toFixed(1)} %${r.driftSignificant ? "" : " (n.s.)"}`}</td>
