@@ -49,8 +49,11 @@ try {
   step("Applying migrations");
   await runMigrations(cluster.url);
   const db = createDatabase(cluster.url, 2);
+  // A fresh demo is seeded as of now, so its stories (the drifting balance's forecast, the overdue plans) are
+  // current on first sight; set TARELINE_DEMO_DATE to replay it as of another moment.
+  process.env.TARELINE_DEMO_DATE ??= new Date().toISOString();
   const seeded = await seedDemo(db);
-  step(seeded.created ? `Demo data seeded (${seeded.instruments} instruments)` : "Demo data already present (nothing added)");
+  step(seeded.created ? `Demo data seeded as of ${process.env.TARELINE_DEMO_DATE.slice(0, 10)} (${seeded.instruments} instruments)` : "Demo data already present (nothing added)");
   const demo = await writeDemoFile(db, path.join(dataDir, "demo.json"), `http://localhost:${appPort}`);
   await db.$client.end();
   step("Demo people and their API tokens are in .data/demo.json");

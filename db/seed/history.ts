@@ -11,7 +11,7 @@ import { dedupeKey } from "../../app/queries/checks.server";
 import { refreshSeriesSummary } from "../../app/queries/series-summary.server";
 import { checkPlans, checkPlanWeights, checkReadings, checks, instrumentEvents, instruments, memberships, testWeights, users } from "../schema";
 import { normal } from "./random";
-import { REFERENCE_DATE } from "./random";
+import { demoToday } from "./random";
 import { readingsEnteredSql } from "../../app/queries/readings-entered.server";
 
 export const DRIFT_STORY = "AVP-AB-01";
@@ -35,7 +35,7 @@ const DRIFT_PER_DAY_G = 0.001 / (DRIFT_START_DAYS_AGO + 42);
 
 type InstrumentRow = typeof instruments.$inferSelect;
 
-const daysAgo = (at: Date) => (REFERENCE_DATE.getTime() - at.getTime()) / DAY;
+const daysAgo = (at: Date) => (demoToday().getTime() - at.getTime()) / DAY;
 
 function calibrationDaysAgo(index: number, tag: string): number[] {
   if (tag === DRIFT_STORY) return [85, 450];
@@ -79,7 +79,7 @@ function schedule(intervalDays: number, random: () => number, lastDaysAgo = 0): 
   const times: Date[] = [];
   for (let ago = HISTORY_DAYS - Math.floor(random() * intervalDays); ago > lastDaysAgo; ago -= intervalDays) {
     if (intervalDays === 1 && random() < 0.04) continue;
-    const base = REFERENCE_DATE.getTime() - ago * DAY;
+    const base = demoToday().getTime() - ago * DAY;
     times.push(new Date(Math.floor(base / DAY) * DAY + (7 * 60 + Math.floor(random() * 120)) * 60_000));
   }
   return times;
@@ -99,8 +99,8 @@ export async function seedHistory(tx: Transaction, random: () => number) {
   };
 
   const events = fleet.flatMap((inst, i) => [
-    ...calibrationDaysAgo(i, inst.assetTag).map((ago) => ({ instrumentId: inst.id, kind: "calibration" as const, occurredAt: new Date(REFERENCE_DATE.getTime() - ago * DAY), note: "Annual calibration by the accredited provider (demo)." })),
-    ...(inst.assetTag === ECCENTRICITY_STORY ? [{ instrumentId: inst.id, kind: "relocation" as const, occurredAt: new Date(REFERENCE_DATE.getTime() - RELOCATION_DAYS_AGO * DAY), note: "Moved to the packing hall bench (demo)." }] : []),
+    ...calibrationDaysAgo(i, inst.assetTag).map((ago) => ({ instrumentId: inst.id, kind: "calibration" as const, occurredAt: new Date(demoToday().getTime() - ago * DAY), note: "Annual calibration by the accredited provider (demo)." })),
+    ...(inst.assetTag === ECCENTRICITY_STORY ? [{ instrumentId: inst.id, kind: "relocation" as const, occurredAt: new Date(demoToday().getTime() - RELOCATION_DAYS_AGO * DAY), note: "Moved to the packing hall bench (demo)." }] : []),
   ]);
   await tx.insert(instrumentEvents).values(events);
 
@@ -136,6 +136,6 @@ export async function seedHistory(tx: Transaction, random: () => number) {
     const ids = await tx.insert(checks).values(batch.map((r) => ({ ...r.values, readingsEntered: readingsEnteredSql(r.readings) }))).returning({ id: checks.id });
     await tx.insert(checkReadings).values(batch.flatMap((r, j) => r.readings.map((reading, k) => ({ checkId: ids[j].id, ordinal: k + 1, position: reading.position, value: reading.entered }))));
   }
-  for (const plan of plans) await refreshSeriesSummary(tx, plan.instrumentId, plan.checkType, REFERENCE_DATE);
+  for (const plan of plans) await refreshSeriesSummary(tx, plan.instrumentId, plan.checkType, demoToday());
   return rows.length;
 }

@@ -4,7 +4,7 @@ import { eq } from "drizzle-orm";
 import type { Transaction } from "../../app/lib/db.server";
 import { assessRisk, type Consequence } from "../../app/lib/risk";
 import { checkPlans, instruments, trainingRecords, users } from "../schema";
-import { REFERENCE_DATE } from "./random";
+import { demoToday } from "./random";
 
 const DAY = 86_400_000;
 const isoDate = (d: Date) => d.toISOString().slice(0, 10);
@@ -23,12 +23,12 @@ export async function seedProgramme(tx: Transaction) {
       measuredMinimumWeightG: null,
       safetyFactor: Number(plan.safetyFactor),
     });
-    const assessment = { ...risk, assessedAt: new Date(REFERENCE_DATE.getTime() - 400 * DAY).toISOString(), assessedBy: "Milo Ferrante", chosenIntervalDays: plan.intervalDays, intervalReason: "Set when the routine-check programme was introduced." };
+    const assessment = { ...risk, assessedAt: new Date(demoToday().getTime() - 400 * DAY).toISOString(), assessedBy: "Milo Ferrante", chosenIntervalDays: plan.intervalDays, intervalReason: "Set when the routine-check programme was introduced." };
     await tx.update(checkPlans).set({ riskAssessment: assessment }).where(eq(checkPlans.id, plan.id));
   }
   const [tomas] = await tx.select({ id: users.id }).from(users).where(eq(users.email, "tomas.technician@quillmere.test"));
   if (tomas) {
-    const trainedOn = new Date(REFERENCE_DATE.getTime() - 345 * DAY);
+    const trainedOn = new Date(demoToday().getTime() - 345 * DAY);
     await tx.insert(trainingRecords).values({ userId: tomas.id, procedure: "linearity", trainedOn: isoDate(trainedOn), trainerName: "Milo Ferrante", expiresOn: isoDate(new Date(trainedOn.getTime() + 365 * DAY)), evidence: "Practical assessment passed; refresher booked." });
   }
 }

@@ -18,5 +18,18 @@ export function normal(random: () => number): number {
 }
 
 export const SEED = 20261130;
-/** The demo's "today": every date in the scenario is relative to it. */
+/** The fixed "today" the tests are written against. */
 export const REFERENCE_DATE = new Date("2026-11-30T12:00:00Z");
+
+/**
+ * The demo's "today": every date in the scenario is relative to it. TARELINE_DEMO_DATE moves it (`npm start` seeds
+ * a fresh database as of the moment it runs, so the stories are current on first sight); otherwise the fixed date.
+ * The random draws do not depend on it, so the stories are the same, only shifted in time.
+ */
+export function demoToday(): Date {
+  const moved = process.env.TARELINE_DEMO_DATE;
+  if (!moved) return REFERENCE_DATE;
+  const at = new Date(moved);
+  if (Number.isNaN(at.getTime())) throw new Error(`TARELINE_DEMO_DATE is not a date: ${moved}`);
+  return at;
+}

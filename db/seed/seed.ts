@@ -5,7 +5,7 @@ import { KIND_LABELS } from "../../app/lib/instrument-form";
 import { checkPlans, checkPlanWeights, instruments, memberships, rooms, sites, testWeights, trainingRecords, users } from "../schema";
 import { fleetFor, ROOMS } from "./instruments";
 import { DEMO_PEOPLE, DEMO_SITES } from "./people";
-import { REFERENCE_DATE, SEED, seededRandom } from "./random";
+import { demoToday, SEED, seededRandom } from "./random";
 import { ECCENTRICITY_STORY, seedHistory } from "./history";
 import { seedProgramme } from "./programme";
 import { weightsFor } from "./weights";
@@ -30,7 +30,7 @@ export async function seedDemo(db: Database): Promise<{ created: boolean; instru
     const training = DEMO_PEOPLE.flatMap((p, i) =>
       p.training.map((entry) => {
         const expired = entry.startsWith("expired:");
-        const trainedOn = new Date(REFERENCE_DATE.getTime() - (expired ? 430 : 120) * day);
+        const trainedOn = new Date(demoToday().getTime() - (expired ? 430 : 120) * day);
         return {
           userId: people[i].id,
           procedure: entry.replace("expired:", ""),

@@ -1,5 +1,5 @@
 // Test weights per site, each with an invented certificate; one certificate falls due soon (DESIGN.md §6).
-import { REFERENCE_DATE } from "./random";
+import { demoToday } from "./random";
 
 const day = 86_400_000;
 const isoDate = (d: Date) => d.toISOString().slice(0, 10);
@@ -34,7 +34,7 @@ export function weightsFor(siteCode: string, siteId: number, random: () => numbe
     const nominal = Number(w.nominalG);
     const scale = nominal * (w.weightClass.startsWith("E") ? 1.6e-6 : w.weightClass === "F1" ? 5e-6 : 5e-5);
     const deviation = (random() - 0.5) * scale;
-    const calibratedOn = new Date(REFERENCE_DATE.getTime() - (siteCode === "AVP" && i === 3 ? 350 : 120 + i * 20) * day);
+    const calibratedOn = new Date(demoToday().getTime() - (siteCode === "AVP" && i === 3 ? 350 : 120 + i * 20) * day);
     return {
       siteId,
       identifier: `${siteCode}-W-${String(i + 1).padStart(2, "0")}`,
