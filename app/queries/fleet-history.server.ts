@@ -11,9 +11,18 @@ export interface FleetHistory {
 
 const WORST = ["in_tolerance", "guard_band", "out_of_tolerance"] as const;
 
-export async function getFleetHistory(db: Database, viewer: Viewer, params: { site?: number }, now: Date): Promise<FleetHistory> {
-  const ids = visibleSiteIds(viewer);
-  const scope = ids === null ? sql`true` : sql`i.site_id = any(${sql.raw(`array[${(ids.length ? ids : [-1]).map(Number).join(",")}]::int[]`)})`;
+/** At most this many instruments per request: the fleet page asks for the instruments of the page it shows. */
+export const FLEET_HISTORY_MAX_IDS = 200;
+
+/**
+ * With `ids`, those instruments in that order (the fleet page's sorted page); without, every visible one by asset tag.
+ * Instruments of sites the viewer may not see are left out either way.
+ */
+export async function getFleetHistory(db: Database, viewer: Viewer, params: { site?: number; ids?: number[] }, now: Date): Promise<FleetHistory> {
+  const visible = visibleSiteIds(viewer);
+  const siteScope = visible === null ? sql`true` : sql`i.site_id = any(${sql.raw(`array[${(visible.length ? visible : [-1]).map(Number).join(",")}]::int[]`)})`;
+  const chosen = params.ids ? sql`i.id = any(${sql.raw(`array[${(params.ids.length ? params.ids : [-1]).map(Number).join(",")}]::int[]`)})` : sql`true`;
+  const scope = sql`${siteScope} and ${chosen}`;
   const site = params.site ? sql`i.site_id = ${params.site}` : sql`true`;
   const since90 = new Date(now.getTime() - 90 * 86_400_000);
   const weekStart = new Date(now.getTime() - 7 * 86_400_000 * 11);
@@ -45,5 +54,6 @@ export async function getFleetHistory(db: Database, viewer: Viewer, params: { si
     const target = byInstrument.get(Number(row.instrument_id));
     if (target && row.week >= 0 && row.week < 12) target.weekly[row.week] = WORST[Number(row.worst)];
   }
-  return { weeks, instruments: [...byInstrument.values()] };
+  const order = params.ids ? params.ids.filter((id) => byInstrument.has(id)) : [...byInstrument.keys()];
+  return { weeks, instruments: order.map((id) => byInstrument.get(id)!) };
 }

@@ -1,5 +1,5 @@
 import { createHash, randomBytes } from "node:crypto";
-import { and, eq, isNull } from "drizzle-orm";
+import { and, eq, isNull, lt, or } from "drizzle-orm";
 import { apiTokens, memberships, users } from "../../db/schema";
 import type { DbOrTx } from "../lib/db.server";
 import type { Viewer } from "../lib/permissions";
@@ -42,11 +42,19 @@ export async function revokeApiToken(db: DbOrTx, params: { tokenId: number; acto
   return row ?? null;
 }
 
+/**
+ * "Last used" is kept to the minute: a read looks the token up, and only the first use in a minute writes. A write
+ * (and its commit to disk) on every API request cost more than many a request itself.
+ */
 export async function userIdForToken(db: DbOrTx, secret: string): Promise<number | null> {
   const [row] = await db
-    .update(apiTokens)
-    .set({ lastUsedAt: new Date() })
-    .where(and(eq(apiTokens.tokenHash, hashToken(secret)), isNull(apiTokens.revokedAt)))
-    .returning({ userId: apiTokens.userId });
-  return row?.userId ?? null;
+    .select({ id: apiTokens.id, userId: apiTokens.userId, lastUsedAt: apiTokens.lastUsedAt })
+    .from(apiTokens)
+    .where(and(eq(apiTokens.tokenHash, hashToken(secret)), isNull(apiTokens.revokedAt)));
+  if (!row) return null;
+  const now = new Date();
+  if (!row.lastUsedAt || now.getTime() - row.lastUsedAt.getTime() >= 60_000) {
+    await db.update(apiTokens).set({ lastUsedAt: now }).where(and(eq(apiTokens.id, row.id), or(isNull(apiTokens.lastUsedAt), lt(apiTokens.lastUsedAt, new Date(now.getTime() - 60_000)))));
+  }
+  return row.userId;
 }

@@ -1,11 +1,11 @@
-import { Form, Link } from "react-router";
+import { Form, Link, useSearchParams } from "react-router";
 import { FleetHistoryPanels } from "~/components/fleet/fleet-history-panels";
 import { FleetTable } from "~/components/fleet/fleet-table";
 import { SiteComparison } from "~/components/fleet/site-comparison";
 import { PageHeader } from "~/components/ui/page-header";
 import { PanelBoundary } from "~/components/ui/panel-boundary";
 import { db } from "~/lib/db.server";
-import { FleetParamsSchema } from "~/lib/fleet-params";
+import { FLEET_PAGE_SIZE, fleetPage, FleetParamsSchema } from "~/lib/fleet-params";
 import { requireViewer } from "~/lib/guards.server";
 import { forbiddenPage } from "~/lib/http.server";
 import { can } from "~/lib/permissions";
@@ -22,16 +22,31 @@ export async function loader({ request }: Route.LoaderArgs) {
   const params = parseSearchParams(FleetParamsSchema, request.url);
   const now = new Date();
   const [rows, places] = await Promise.all([listFleet(db(), viewer, params, now), listSitesAndRooms(db(), viewer)]);
-  return { rows, sites: compareSites(rows), params, siteOptions: places.sites, now: now.toISOString() };
+  // The comparison and the counts cover every instrument; the table, small multiples and heat map show one page of
+  // the sorted list, so a fleet of thousands draws as fast as one of fifty (sorted by forecast, page 1 is the riskiest).
+  const page = fleetPage(rows, params.page);
+  return { page, overdue: rows.filter((r) => r.overdue).length, sites: compareSites(rows), params, siteOptions: places.sites, now: now.toISOString() };
 }
 
 export default function Fleet({ loaderData }: Route.ComponentProps) {
-  const { rows, sites, params, siteOptions } = loaderData;
+  const { page, overdue, sites, params, siteOptions } = loaderData;
   const now = new Date(loaderData.now);
-  const overdue = rows.filter((r) => r.overdue).length;
+  const [search] = useSearchParams();
+  const pageLink = (n: number) => {
+    const next = new URLSearchParams(search);
+    next.set("page", String(n));
+    return `?${next}`;
+  };
+  const pager = page.pages > 1 ? (
+    <nav aria-label="Pages of the fleet" className="flex items-center gap-3 text-sm">
+      {page.page > 1 ? <Link to={pageLink(page.page - 1)} preventScrollReset className="text-accent underline">Previous</Link> : null}
+      <span className="text-ink-soft">Instruments {(page.page - 1) * FLEET_PAGE_SIZE + 1}–{(page.page - 1) * FLEET_PAGE_SIZE + page.rows.length} of {page.total} · page {page.page} of {page.pages}</span>
+      {page.page < page.pages ? <Link to={pageLink(page.page + 1)} preventScrollReset className="text-accent underline">Next</Link> : null}
+    </nav>
+  ) : null;
   return (
     <>
-      <PageHeader title="Fleet" subtitle={`${rows.length} instruments · ${overdue} with an overdue check · drift and forecast from the ${params.type} checks`} />
+      <PageHeader title="Fleet" subtitle={`${page.total} instruments · ${overdue} with an overdue check · drift and forecast from the ${params.type} checks`} />
       <Form method="get" className="mb-4 flex flex-wrap items-end gap-3 text-sm" aria-label="Filter the fleet">
         <label className="flex flex-col gap-1"><span className="text-xs font-medium text-ink-soft">Site</span>
           <select name="site" defaultValue={params.site ?? ""} className="rounded-md border border-rule bg-card px-2 py-1.5"><option value="">All my sites</option>{siteOptions.map((s) => <option key={s.id} value={s.id}>{s.code} · {s.name}</option>)}</select>
@@ -50,10 +65,14 @@ export default function Fleet({ loaderData }: Route.ComponentProps) {
       </Form>
       <div className="grid gap-6">
         <SiteComparison sites={sites} />
-        {rows.length ? <FleetTable rows={rows} params={params} now={now} /> : <p className="rounded-md border border-dashed border-rule bg-card p-8 text-center text-ink-soft">No instrument matches these filters.</p>}
-        <PanelBoundary title="Recent history">
-          <FleetHistoryPanels site={params.site} now={now} />
-        </PanelBoundary>
+        {pager}
+        {page.rows.length ? <FleetTable rows={page.rows} params={params} now={now} /> : <p className="rounded-md border border-dashed border-rule bg-card p-8 text-center text-ink-soft">No instrument matches these filters.</p>}
+        {pager}
+        {page.rows.length ? (
+          <PanelBoundary title="Recent history">
+            <FleetHistoryPanels ids={page.rows.map((r) => r.id)} now={now} />
+          </PanelBoundary>
+        ) : null}
       </div>
     </>
   );

@@ -107,6 +107,15 @@ describe("GET /api/v1/fleet", () => {
     for (const site of sites) expect({ site: site.site, overdue: site.overdue }).toEqual({ site: site.site, overdue: overdue((p) => p.siteCode === site.site) });
   });
 
+  it("narrows the history to the instruments asked for, in their order, and never another site's", async () => {
+    const ids = [idOf["QNW-PB-02"], idOf["AVP-AB-01"], idOf["LNT-AB-01"]];
+    const result = await run(fleetHistory.loader, request(`/api/v1/fleet/history?ids=${ids.join(",")}`, { cookie: cookies[METROLOGIST] }));
+    expect((result.body as { instruments: { assetTag: string }[] }).instruments.map((i) => i.assetTag)).toEqual(["QNW-PB-02", "AVP-AB-01"]);
+    const bad = await run(fleetHistory.loader, request("/api/v1/fleet/history?ids=1,x", { cookie: cookies[METROLOGIST] }));
+    expect(bad.status).toBe(400);
+    expect((bad.body as { errors: { pointer: string }[] }).errors[0].pointer).toBe("/ids");
+  });
+
   it("shows only the viewer's sites and refuses a technician", async () => {
     const mine = (await run(fleetApi.loader, request("/api/v1/fleet", { cookie: cookies[METROLOGIST] }))).body as { rows: FleetRow[] };
     expect(new Set(mine.rows.map((r) => r.siteCode))).toEqual(new Set(["AVP", "QNW"]));

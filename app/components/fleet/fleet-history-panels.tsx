@@ -4,8 +4,8 @@ import { OutcomeShape, OUTCOME_LABELS } from "~/components/ui/outcome-badge";
 import { useFleetHistoryQuery } from "~/hooks/use-fleet-history-query";
 
 /** Small multiples (each instrument's E ÷ T, −1…+1) and the instruments × weeks heat map by worst outcome. */
-export function FleetHistoryPanels({ site, now }: { site?: number; now: Date }) {
-  const { data, error, isPending } = useFleetHistoryQuery(site);
+export function FleetHistoryPanels({ ids, now }: { ids: number[]; now: Date }) {
+  const { data, error, isPending } = useFleetHistoryQuery(ids);
   if (isPending) return <p className="text-sm text-ink-soft">Loading the fleet's recent history…</p>;
   if (error) return <p role="alert" className="text-sm text-out">{error.message}</p>;
   const from = new Date(now.getTime() - 90 * 86_400_000);
@@ -14,7 +14,7 @@ export function FleetHistoryPanels({ site, now }: { site?: number; now: Date }) 
     <div className="grid gap-6">
       <section aria-labelledby="multiples-heading" className="rounded-md border border-rule bg-card p-4">
         <h2 id="multiples-heading" className="font-semibold">Sensitivity error as a share of tolerance, last 90 days</h2>
-        <p className="text-sm text-ink-soft">Each instrument on one scale: the heavy vermilion lines are its tolerance (±1). A line heading for an edge is an instrument heading for a failure.</p>
+        <p className="text-sm text-ink-soft">The instruments of the table above, in its order. Each on one scale: the heavy vermilion lines are its tolerance (±1). A line heading for an edge is an instrument heading for a failure.</p>
         <ul className="mt-3 grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-5 xl:grid-cols-6">
           {withData.map((i) => {
             const last = i.normalised.at(-1)!;
