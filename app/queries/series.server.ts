@@ -33,16 +33,25 @@ interface SeriesRow {
  * is a thousand rows, and building Date objects and mapping columns row by row cost more than the query itself.
  */
 async function loadPoints(db: DbOrTx, instrumentId: number, type: CheckType, to: Date): Promise<SeriesRow[]> {
+  const series = sql`c.instrument_id = ${instrumentId} and c.check_type = ${type} and c.superseded_at is null and c.performed_at < ${to.toISOString()}::timestamptz`;
+  // Annotations are few: grouped once for the series and hash-joined, not looked up per point. Only the newest
+  // point needs its engine details (the pan drawing), so only its jsonb is read.
   const result = await db.execute<Record<string, unknown>>(sql`
-    select c.id, extract(epoch from c.performed_at) * 1000 as at_ms, c.result_g, c.outcome, c.tolerance_g, c.acceptance_g, c.details, u.name as operator,
+    with notes as (
+      select pa.check_id, bool_or(pa.excluded) as excluded, array_agg(pa.reason order by pa.id) as reasons
+      from point_annotations pa join checks c on c.id = pa.check_id
+      where ${series} and pa.withdrawn_at is null
+      group by pa.check_id
+    ), newest as (
+      select c.id from checks c where ${series} order by c.performed_at desc, c.id desc limit 1
+    )
+    select c.id, extract(epoch from c.performed_at) * 1000 as at_ms, c.result_g, c.outcome, c.tolerance_g, c.acceptance_g,
+      case when c.id = (select id from newest) then c.details end as details, u.name as operator,
       coalesce(a.excluded, false) as excluded, coalesce(a.reasons, '{}') as reasons
     from checks c
     join users u on u.id = c.operator_id
-    left join lateral (
-      select bool_or(pa.excluded) as excluded, array_agg(pa.reason order by pa.id) as reasons
-      from point_annotations pa where pa.check_id = c.id and pa.withdrawn_at is null
-    ) a on true
-    where c.instrument_id = ${instrumentId} and c.check_type = ${type} and c.superseded_at is null and c.performed_at < ${to.toISOString()}::timestamptz
+    left join notes a on a.check_id = c.id
+    where ${series}
     order by c.performed_at, c.id`);
   return result.rows.map((r) => ({
     checkId: Number(r.id),
@@ -57,6 +66,13 @@ async function loadPoints(db: DbOrTx, instrumentId: number, type: CheckType, to:
     annotations: r.reasons as string[],
   }));
 }
+
+/**
+ * EWMA and CUSUM statistics per point go out to six significant digits: far finer than any chart or decision needs,
+ * and seventeen random-looking digits per number made a three-year series a fifth larger and slower to compress.
+ * Results, limits, trend and forecast keep full precision.
+ */
+const drawn = (v: number | null | undefined) => (v === null || v === undefined ? null : Number(v.toPrecision(6)));
 
 /** Sensitivity errors are signed; repeatability and eccentricity results are sizes with an upper limit only. */
 const isTwoSided = (type: CheckType) => type === "sensitivity";
@@ -91,11 +107,11 @@ export async function getInstrumentSeries(db: DbOrTx, instrument: InstrumentDeta
     const baselineEnd = analysis?.baseline ? kept[analysis.baseline.count - 1] : undefined;
     stages.push({ index: s, from: iso(stageFrom), to: iso(stageTo), baseline: analysis?.baseline ?? null, limits: analysis?.limits ?? null, baselineEndsAt: baselineEnd ? iso(baselineEnd.atMs) : null, warnings: analysis?.warnings ?? [] });
     let k = 0;
-    // Only the newest point carries the engine's details (the pan drawing needs them); on every point they would
-    // triple the payload of a three-year series.
+    // Only the newest point carries the engine's details (the pan drawing needs them; loadPoints reads no others):
+    // on every point they would triple the payload of a three-year series.
     for (const p of members) {
       const analyzed = p.excluded ? null : analysis?.points[k++];
-      points.push({ checkId: p.checkId, at: iso(p.atMs), value: p.value, outcome: p.outcome, excluded: p.excluded, annotations: p.annotations, operator: p.operator, stage: s, signals: analyzed?.signals ?? [], ewma: analyzed?.ewma ?? null, ewmaUcl: analyzed?.ewmaUcl ?? null, ewmaLcl: analyzed?.ewmaLcl ?? null, cusumHigh: analyzed?.cusumHigh ?? null, cusumLow: analyzed?.cusumLow ?? null, details: p === last ? p.details : null });
+      points.push({ checkId: p.checkId, at: iso(p.atMs), value: p.value, outcome: p.outcome, excluded: p.excluded, annotations: p.annotations, operator: p.operator, stage: s, signals: analyzed?.signals ?? [], ewma: drawn(analyzed?.ewma), ewmaUcl: drawn(analyzed?.ewmaUcl), ewmaLcl: drawn(analyzed?.ewmaLcl), cusumHigh: drawn(analyzed?.cusumHigh), cusumLow: drawn(analyzed?.cusumLow), details: p.details });
     }
     if (s === resets.length || members.at(-1) === last) {
       current = analysis;
