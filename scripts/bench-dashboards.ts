@@ -48,7 +48,8 @@ async function seriesFigure({ db, baseUrl, token, instrumentId }: Bench) {
   // range=all: the page's default is one year; the target is about the full three-year history.
   const url = `${baseUrl}/api/v1/instruments/${instrumentId}/series?type=sensitivity&range=all`;
   const points = ((await (await get(url, token)).json()) as { points: unknown[] }).points.length;
-  const http = await sample(30, 5, async () => (await get(url, token)).arrayBuffer());
+  // Warm-up long enough for V8 to optimise the route's code: a server answers thousands of these, not five.
+  const http = await sample(50, 30, async () => (await get(url, token)).arrayBuffer());
   // The rows the endpoint's own query reads (see loadPoints), without the analysis or the JSON.
   const bare = await sample(30, 5, () => db.$client.query(
     `select c.id, c.performed_at, c.result_g, c.outcome, c.tolerance_g, c.acceptance_g, c.details, u.name as operator
