@@ -6,6 +6,7 @@ import { isMainThread, parentPort, workerData } from "node:worker_threads";
 import { analyzeSeries } from "../app/lib/stats/analyze";
 import { theilSenAndMannKendall } from "../app/lib/stats/theil-sen";
 import { daysSinceFirstMs } from "../app/lib/stats/time-axis";
+import { seededRandom } from "../db/seed/random";
 
 export interface Job {
   seriesCount: number;
@@ -37,28 +38,16 @@ const READABILITY = 0.0001;
 const CHUNK = 8;
 const TOLERANCE = { upper: 100.1, lower: 99.9, guardBand: 0.1 / 3 };
 
-/** mulberry32: a small, fast, seeded generator; the same seed always builds the same fleet. */
-function generator(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 /** Check times shared by the fleet (daily, at a random minute of the morning), as epoch ms and as ISO strings. */
 function buildTimes(points: number): { ms: Float64Array; iso: string[] } {
-  const random = generator(0x51ed);
+  const random = seededRandom(0x51ed);
   const ms = Float64Array.from({ length: points }, (_, i) => START + i * DAY_MS + Math.floor(random() * 3_600_000));
   return { ms, iso: Array.from(ms, (t) => new Date(t).toISOString()) };
 }
 
 /** Series i: a 100 g sensitivity check read to 0.1 mg, daily, some drifting, some with a step after a repair. */
 function buildValues(index: number, points: number): number[] {
-  const random = generator(0x7a4e11 + index);
+  const random = seededRandom(0x7a4e11 + index);
   const normal = () => Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random());
   const drift = random() < 0.15 ? (random() - 0.5) * 4e-6 : 0;
   const stepAt = random() < 0.1 ? Math.floor(random() * points) : -1;

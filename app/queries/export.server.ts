@@ -63,7 +63,7 @@ const CELLS = [
   "c.outcome",
   "c.expanded_uncertainty_g",
   // The copy kept on the check; a row written before it existed falls back to the readings themselves.
-  neutralised("coalesce(c.readings_entered, (select string_agg(coalesce(r.position::text || '=', '') || r.value::text, ' ' order by r.ordinal) from check_readings r where r.check_id = c.id))"),
+  neutralised("coalesce(c.readings_entered, (select readings_as_entered(array_agg(r.value order by r.ordinal), array_agg(r.position::text order by r.ordinal)) from check_readings r where r.check_id = c.id))"),
   "c.unit",
   neutralised("w.identifier"),
   "w.conventional_mass_g",

@@ -3,6 +3,7 @@
 import { sql } from "drizzle-orm";
 import type { Database } from "../lib/db.server";
 import { visibleSiteIds, type Viewer } from "../lib/permissions";
+import { anyId } from "./sql-ids.server";
 
 export interface FleetHistory {
   weeks: string[];
@@ -20,8 +21,8 @@ export const FLEET_HISTORY_MAX_IDS = 200;
  */
 export async function getFleetHistory(db: Database, viewer: Viewer, params: { site?: number; ids?: number[] }, now: Date): Promise<FleetHistory> {
   const visible = visibleSiteIds(viewer);
-  const siteScope = visible === null ? sql`true` : sql`i.site_id = any(${sql.raw(`array[${(visible.length ? visible : [-1]).map(Number).join(",")}]::int[]`)})`;
-  const chosen = params.ids ? sql`i.id = any(${sql.raw(`array[${(params.ids.length ? params.ids : [-1]).map(Number).join(",")}]::int[]`)})` : sql`true`;
+  const siteScope = visible === null ? sql`true` : anyId(sql`i.site_id`, visible);
+  const chosen = params.ids ? anyId(sql`i.id`, params.ids) : sql`true`;
   const scope = sql`${siteScope} and ${chosen}`;
   const site = params.site ? sql`i.site_id = ${params.site}` : sql`true`;
   const since90 = new Date(now.getTime() - 90 * 86_400_000);

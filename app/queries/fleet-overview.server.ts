@@ -4,6 +4,7 @@ import { sql, type SQL } from "drizzle-orm";
 import type { Database } from "../lib/db.server";
 import type { FleetParams } from "../lib/fleet-params";
 import { visibleSiteIds, type Viewer } from "../lib/permissions";
+import { anyId } from "./sql-ids.server";
 
 export interface FleetRow {
   id: number;
@@ -51,7 +52,7 @@ export async function listFleet(db: Database, viewer: Viewer, params: FleetParam
   const where = sql.join(
     [
       sql`true`,
-      ids === null ? sql`true` : sql`i.site_id = any(${sql.raw(`array[${(ids.length ? ids : [-1]).map(Number).join(",")}]::int[]`)})`,
+      ids === null ? sql`true` : anyId(sql`i.site_id`, ids),
       params.site ? sql`i.site_id = ${params.site}` : sql`true`,
       params.status ? sql`i.status = ${params.status}` : sql`true`,
     ],

@@ -6,6 +6,7 @@ import { localDateTime } from "~/lib/schedule";
 import { parseSearchParams } from "~/lib/search-params";
 import { auditFilterChoices, AuditFilterSchema, changedFields, listAuditEvents } from "~/queries/audit-trail.server";
 import type { Route } from "./+types/audit";
+import { Pager } from "~/components/ui/pager";
 
 export const meta = () => [{ title: "Audit trail · Tareline" }];
 
@@ -43,7 +44,6 @@ const OPEN: Record<string, (id: string) => string> = {
 export default function Audit({ loaderData }: Route.ComponentProps) {
   const { filter, entities, actors, rows, total, pages } = loaderData;
   const [search] = useSearchParams();
-  const pageLink = (page: number) => { const p = new URLSearchParams(search); p.set("page", String(page)); return `?${p}`; };
   return (
     <>
       <PageHeader title="Audit trail" subtitle={`${total} ${total === 1 ? "event" : "events"}. Append-only and hash-chained: every change with who, when, what, before and after.`} action={<a href={`/api/v1/audit.csv?${new URLSearchParams([...search.entries()].filter(([k]) => k !== "page"))}`} className="text-sm text-accent underline">Download CSV</a>} />
@@ -88,13 +88,7 @@ export default function Audit({ loaderData }: Route.ComponentProps) {
           </tbody>
         </table>
       )}
-      {pages > 1 ? (
-        <nav aria-label="Pages" className="mt-4 flex gap-3 text-sm">
-          {filter.page > 1 ? <Link to={pageLink(filter.page - 1)} className="text-accent underline">Newer</Link> : null}
-          <span className="num">Page {filter.page} of {pages}</span>
-          {filter.page < pages ? <Link to={pageLink(filter.page + 1)} className="text-accent underline">Older</Link> : null}
-        </nav>
-      ) : null}
+      {pages > 1 ? <Pager page={filter.page} pages={pages} previous="Newer" next="Older" /> : null}
     </>
   );
 }

@@ -1,4 +1,4 @@
-import { Form, Link, useSearchParams } from "react-router";
+import { Form, Link } from "react-router";
 import { FleetHistoryPanels } from "~/components/fleet/fleet-history-panels";
 import { FleetTable } from "~/components/fleet/fleet-table";
 import { SiteComparison } from "~/components/fleet/site-comparison";
@@ -13,6 +13,7 @@ import { parseSearchParams } from "~/lib/search-params";
 import { compareSites, listFleet } from "~/queries/fleet-overview.server";
 import { listSitesAndRooms } from "~/queries/instruments.server";
 import type { Route } from "./+types/fleet";
+import { Pager } from "~/components/ui/pager";
 
 export const meta = () => [{ title: "Fleet · Tareline" }];
 
@@ -31,19 +32,8 @@ export async function loader({ request }: Route.LoaderArgs) {
 export default function Fleet({ loaderData }: Route.ComponentProps) {
   const { page, overdue, sites, params, siteOptions } = loaderData;
   const now = new Date(loaderData.now);
-  const [search] = useSearchParams();
-  const pageLink = (n: number) => {
-    const next = new URLSearchParams(search);
-    next.set("page", String(n));
-    return `?${next}`;
-  };
-  const pager = page.pages > 1 ? (
-    <nav aria-label="Pages of the fleet" className="flex items-center gap-3 text-sm">
-      {page.page > 1 ? <Link to={pageLink(page.page - 1)} preventScrollReset className="text-accent underline">Previous</Link> : null}
-      <span className="text-ink-soft">Instruments {(page.page - 1) * FLEET_PAGE_SIZE + 1}–{(page.page - 1) * FLEET_PAGE_SIZE + page.rows.length} of {page.total} · page {page.page} of {page.pages}</span>
-      {page.page < page.pages ? <Link to={pageLink(page.page + 1)} preventScrollReset className="text-accent underline">Next</Link> : null}
-    </nav>
-  ) : null;
+  const first = (page.page - 1) * FLEET_PAGE_SIZE + 1;
+  const pager = page.pages > 1 ? <Pager page={page.page} pages={page.pages} label="Pages of the fleet" className="" summary={`Instruments ${first}–${first + page.rows.length - 1} of ${page.total} · page ${page.page} of ${page.pages}`} /> : null;
   return (
     <>
       <PageHeader title="Fleet" subtitle={`${page.total} instruments · ${overdue} with an overdue check · drift and forecast from the ${params.type} checks`} />

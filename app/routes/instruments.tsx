@@ -1,4 +1,4 @@
-import { Form, Link, useSearchParams } from "react-router";
+import { Form, Link } from "react-router";
 import { ButtonLink } from "~/components/ui/button";
 import { PageHeader } from "~/components/ui/page-header";
 import { SortHeader } from "~/components/ui/sort-header";
@@ -12,6 +12,7 @@ import { formatMass, naturalUnit } from "~/lib/units";
 import { listInstruments, listSitesAndRooms } from "~/queries/instruments.server";
 import { INSTRUMENT_KINDS, INSTRUMENT_STATUSES } from "../../db/schema/enums";
 import type { Route } from "./+types/instruments";
+import { Pager } from "~/components/ui/pager";
 
 export const meta = () => [{ title: "Instruments · Tareline" }];
 
@@ -26,12 +27,6 @@ const STATUS_LABELS = { in_service: "In service", out_of_service: "Out of servic
 
 export default function Instruments({ loaderData }: Route.ComponentProps) {
   const { page, params, sites, rooms, canCreate } = loaderData;
-  const [search] = useSearchParams();
-  const pageLink = (n: number) => {
-    const next = new URLSearchParams(search);
-    next.set("page", String(n));
-    return `?${next}`;
-  };
   return (
     <>
       <PageHeader
@@ -95,11 +90,7 @@ export default function Instruments({ loaderData }: Route.ComponentProps) {
           </table>
         </div>
       )}
-      <nav aria-label="Pages" className="mt-4 flex items-center gap-3 text-sm">
-        {page.page > 1 ? <Link to={pageLink(page.page - 1)} className="text-accent underline">Previous</Link> : null}
-        <span className="text-ink-soft">Page {page.page} of {page.pages}</span>
-        {page.page < page.pages ? <Link to={pageLink(page.page + 1)} className="text-accent underline">Next</Link> : null}
-      </nav>
+      <Pager page={page.page} pages={page.pages} />
     </>
   );
 }

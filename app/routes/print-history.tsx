@@ -4,7 +4,7 @@ import printCss from "~/components/print/print.css?url";
 import { OutcomeBadge } from "~/components/ui/outcome-badge";
 import { db } from "~/lib/db.server";
 import { requireCapability } from "~/lib/guards.server";
-import { addDays, localDate, localDateTime } from "~/lib/schedule";
+import { addDays, localDateTime } from "~/lib/schedule";
 import { formatMass } from "~/lib/units";
 import { getInstrumentHistory } from "~/queries/print.server";
 import type { Route } from "./+types/print-history";

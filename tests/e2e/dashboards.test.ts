@@ -1,17 +1,10 @@
 import { readFileSync } from "node:fs";
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { launch, screenshot, signIn } from "../helpers/browser";
+import type { Page } from "playwright-core";
+import { describe, expect, inject, it } from "vitest";
+import { screenshot, sharedBrowser, signIn } from "../helpers/browser";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 async function openInstrument(page: Page, tag: string, query = "") {
   await page.goto(`${baseUrl}/instruments?q=${tag}`);
@@ -22,7 +15,7 @@ async function openInstrument(page: Page, tag: string, query = "") {
 
 describe("the metrologist's drift study", () => {
   it("shows the drifting balance's forecast and a run-rule marker whose tooltip names the rule", async () => {
-    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    const page = await browser().newPage({ viewport: { width: 1400, height: 1000 } });
     await signIn(page, baseUrl, "Milo Ferrante");
     await openInstrument(page, "AVP-AB-01");
     const forecast = page.getByLabel("Forecast").first();
@@ -39,7 +32,7 @@ describe("the metrologist's drift study", () => {
   });
 
   it("excludes a point with a reason and the stage's limits change", async () => {
-    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    const page = await browser().newPage({ viewport: { width: 1400, height: 1000 } });
     await signIn(page, baseUrl, "Milo Ferrante");
     await openInstrument(page, "AVP-AB-05", "?range=all&ctype=sensitivity&csort=performedAt&cdir=asc");
     const panel = page.getByRole("region", { name: "Sensitivity panel" });
@@ -64,7 +57,7 @@ describe("the metrologist's drift study", () => {
 
 describe("the site manager's fleet", () => {
   it("sorts by forecast date and the drifting balance comes first", async () => {
-    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    const page = await browser().newPage({ viewport: { width: 1400, height: 1000 } });
     await signIn(page, baseUrl, "Sana Okonkwo-Hale");
     await page.goto(`${baseUrl}/fleet?sort=assetTag`);
     await page.waitForLoadState("networkidle");
@@ -84,7 +77,7 @@ describe("the site manager's fleet", () => {
 
 describe("the analyst's export", () => {
   it("downloads a filtered CSV with the expected rows, header and a neutralised formula cell", async () => {
-    const tech = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    const tech = await browser().newPage({ viewport: { width: 1400, height: 1000 } });
     await signIn(tech, baseUrl, "Tomas Varga-Lind");
     await openInstrument(tech, "AVP-PB-02");
     await tech.getByRole("link", { name: "Record sensitivity check" }).click();
@@ -95,7 +88,7 @@ describe("the analyst's export", () => {
     await tech.getByRole("status").filter({ hasText: "Check recorded" }).waitFor();
     await tech.close();
 
-    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 }, acceptDownloads: true });
+    const page = await browser().newPage({ viewport: { width: 1400, height: 1000 }, acceptDownloads: true });
     await signIn(page, baseUrl, "Anil Brookhart");
     await page.goto(`${baseUrl}/export`);
     await page.getByLabel("Instrument (asset tag)").fill("AVP-PB-02");

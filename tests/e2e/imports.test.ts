@@ -1,18 +1,17 @@
 import { rm, writeFile } from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
-import type { Browser, Page } from "playwright-core";
+import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { launch, screenshot, signIn } from "../helpers/browser";
+import { screenshot, sharedBrowser, signIn } from "../helpers/browser";
 
 const baseUrl = inject("baseUrl");
 const FIXTURES = path.resolve(import.meta.dirname, "../fixtures/imports");
 const medium = path.join(os.tmpdir(), `tareline-e2e-import-${process.pid}.csv`);
 const MEDIUM_ROWS = 40_000;
-let browser: Browser;
+const browser = sharedBrowser();
 
 beforeAll(async () => {
-  browser = await launch();
   // Sensitivity checks on three analytical balances, a minute apart over the autumn: enough rows to watch progress.
   const tags = ["AVP-AB-04", "AVP-AB-05", "AVP-AB-06"];
   // Seconds past the minute, so no row repeats a seeded check (those fall on whole minutes).
@@ -21,7 +20,6 @@ beforeAll(async () => {
   await writeFile(medium, `asset_tag,check_type,performed_at,unit,weight,readings,operator_email,note\n${lines.join("\n")}\n`);
 });
 afterAll(async () => {
-  await browser?.close();
   await rm(medium, { force: true });
 });
 
@@ -35,7 +33,7 @@ async function uploadAndMap(page: Page, file: string) {
 
 describe("importing check history", () => {
   it("uploads, shows the preview with Tareline's columns mapped, checks every row with progress, and imports", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await browser().newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(page, baseUrl, "Milo Ferrante");
     await page.getByRole("link", { name: "Imports" }).click();
     await uploadAndMap(page, medium);
@@ -54,7 +52,7 @@ describe("importing check history", () => {
   }, 180_000);
 
   it("rejects a file with bad rows as a whole, offers the report, then imports only the valid rows", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await browser().newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(page, baseUrl, "Milo Ferrante");
     await uploadAndMap(page, path.join(FIXTURES, "unknown-references.csv"));
     await page.getByRole("button", { name: "Check every row and import" }).click();
@@ -71,7 +69,7 @@ describe("importing check history", () => {
   });
 
   it("a technician sees no Imports link and is refused the page", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await browser().newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(page, baseUrl, "Tomas Varga-Lind");
     expect(await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Imports" }).count()).toBe(0);
     const response = await page.goto(`${baseUrl}/imports`);

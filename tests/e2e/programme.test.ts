@@ -2,23 +2,16 @@
 // the training gate, and the printable records in A4 and Letter.
 import { mkdirSync } from "node:fs";
 import path from "node:path";
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { launch, screenshot, SCREENSHOTS, signIn } from "../helpers/browser";
+import type { Page } from "playwright-core";
+import { describe, expect, inject, it } from "vitest";
+import { screenshot, sharedBrowser, SCREENSHOTS, signIn } from "../helpers/browser";
 
 const baseUrl = inject("baseUrl");
 const TAG = "AVP-AB-77";
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 async function newPage(name: string): Promise<Page> {
-  const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+  const page = await browser().newPage({ viewport: { width: 1280, height: 900 } });
   await signIn(page, baseUrl, name);
   return page;
 }

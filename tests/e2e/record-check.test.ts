@@ -1,16 +1,9 @@
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { launch, screenshot, signIn } from "../helpers/browser";
+import type { Page } from "playwright-core";
+import { describe, expect, inject, it } from "vitest";
+import { screenshot, sharedBrowser, signIn } from "../helpers/browser";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 async function openInstrument(page: Page, tag: string) {
   await page.goto(`${baseUrl}/instruments?q=${tag}`);
@@ -26,7 +19,7 @@ async function readingOnWeight(page: Page): Promise<string> {
 
 describe("a technician records checks", () => {
   it("records sensitivity, repeatability and eccentricity checks within acceptance, seeing the result as typed", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await browser().newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(page, baseUrl, "Tomas Varga-Lind");
     await openInstrument(page, "AVP-AB-03");
 
@@ -63,7 +56,7 @@ describe("a technician records checks", () => {
   });
 
   it("an out-of-tolerance check takes the instrument out of service and a message lands in the outbox", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await browser().newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(page, baseUrl, "Tomas Varga-Lind");
     await openInstrument(page, "AVP-AB-02");
     await page.getByRole("link", { name: "Record sensitivity check" }).click();
@@ -80,7 +73,7 @@ describe("a technician records checks", () => {
   });
 
   it("a technician whose training has expired is refused", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await browser().newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(page, baseUrl, "Rhea Castellane");
     await openInstrument(page, "QNW-PB-01");
     await page.getByRole("link", { name: "Record repeatability check" }).click();

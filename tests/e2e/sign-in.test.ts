@@ -1,17 +1,9 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { describe, expect, inject, it } from "vitest";
 import { DEMO_PEOPLE } from "../../db/seed/people";
-import { launch, screenshot, signIn } from "../helpers/browser";
+import { screenshot, sharedBrowser, signIn } from "../helpers/browser";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 const LANDING: Record<string, { path: string; heading: string }> = {
   admin: { path: "/admin", heading: "Admin" },
@@ -23,7 +15,7 @@ const LANDING: Record<string, { path: string; heading: string }> = {
 
 describe("signing in through the identity-provider fake", () => {
   it.each(DEMO_PEOPLE.map((p) => [p.name, p.role, p.email] as const))("%s (%s) lands on a page fitting the role", async (name, role) => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 860 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 860 } });
     const page = await context.newPage();
     await signIn(page, baseUrl, name);
     expect(new URL(page.url()).pathname).toBe(LANDING[role].path);
@@ -34,7 +26,7 @@ describe("signing in through the identity-provider fake", () => {
   });
 
   it("signing out clears the session", async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     await signIn(page, baseUrl, "Milo Ferrante");
     await page.getByRole("button", { name: "Sign out" }).click();
@@ -46,7 +38,7 @@ describe("signing in through the identity-provider fake", () => {
   });
 
   it("an unregistered person gets a clear page and no account", async () => {
-    const context = await browser.newContext();
+    const context = await browser().newContext();
     const page = await context.newPage();
     await page.goto(`${baseUrl}/auth/login?login_hint=${encodeURIComponent("stranger@elsewhere.test")}`);
     await page.waitForURL(/not-registered/);
@@ -60,7 +52,7 @@ describe("signing in through the identity-provider fake", () => {
 
 describe("roles in the browser", () => {
   it("a technician sees no edit button, and a direct POST to the edit action is refused with 403", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 860 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 860 } });
     const page = await context.newPage();
     await signIn(page, baseUrl, "Tomas Varga-Lind");
     await page.goto(`${baseUrl}/instruments`);
@@ -75,7 +67,7 @@ describe("roles in the browser", () => {
   });
 
   it("a metrologist edits an instrument; invalid input shows the field message and keeps the old value", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 860 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 860 } });
     const page = await context.newPage();
     await signIn(page, baseUrl, "Milo Ferrante");
     await page.getByRole("link", { name: "AVP-AB-02" }).click();

@@ -2,6 +2,7 @@
 import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type Page } from "playwright-core";
+import { afterAll, beforeAll } from "vitest";
 
 export const SCREENSHOTS = path.resolve(import.meta.dirname, "../../test-results/screenshots");
 
@@ -10,6 +11,21 @@ export async function launch(): Promise<Browser> {
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
     args: ["--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
   });
+}
+
+/** One browser for a test file, launched before its tests and closed after them; call at the file's top level. */
+export function sharedBrowser(): () => Browser {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    browser = await launch();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return () => {
+    if (!browser) throw new Error("The browser is not launched yet: use it inside a test or a hook.");
+    return browser;
+  };
 }
 
 export async function screenshot(page: Page, name: string) {

@@ -14,6 +14,7 @@ import * as weightsList from "../../app/routes/weights";
 import { auditEvents, checkPlans, checkPlanWeights, instruments, sites, testWeights } from "../../db/schema";
 import { cookieFor, request, run } from "../helpers/routes";
 import { METROLOGIST, TECHNICIAN } from "../helpers/people";
+import { R111_SPOT_VALUES } from "../../app/lib/stats/r111-spot-values.testing";
 
 // Certificates of this file go to a folder of its own, never the development store.
 process.env.CERTIFICATE_DIR = mkdtempSync(path.join(os.tmpdir(), "tareline-certificates-"));
@@ -24,12 +25,7 @@ const sensitivity = (toleranceG: number) => ({ checkType: "sensitivity" as const
 
 describe("suitability against the spot values of REFERENCE.md §1", () => {
   // [class, nominal g, Table 1 mpe in mg]
-  it.each([
-    ["E2", 1, 0.03], ["F1", 1, 0.1], ["F2", 1, 0.3], ["M1", 1, 1.0],
-    ["E2", 100, 0.16], ["F1", 100, 0.5], ["F2", 100, 1.6], ["M1", 100, 5.0],
-    ["E2", 1000, 1.6], ["F1", 1000, 5.0], ["F2", 1000, 16], ["M1", 1000, 50],
-    ["F1", 10000, 50], ["M1", 10000, 500],
-  ] as const)("%s %i g (mpe %f mg) serves a plan whose T/3 reaches its mpe, and not one whose T/3 falls short", (cls, nominal, mpeMg) => {
+  it.each(R111_SPOT_VALUES)("%s %i g (mpe %f mg) serves a plan whose T/3 reaches its mpe, and not one whose T/3 falls short", (cls, nominal, mpeMg) => {
     const fits = suitabilityForPlan(sensitivity((3 * mpeMg * 1.001) / 1000), instrument, weight(cls, nominal), "2026-06-01");
     expect(fits).toMatchObject({ suitable: true });
     expect(fits.classMpeG! * 1000).toBeCloseTo(mpeMg, 9);

@@ -1,4 +1,4 @@
-import { Form, Link, useLocation } from "react-router";
+import { Form } from "react-router";
 import { OutcomeBadge } from "~/components/ui/outcome-badge";
 import { SortHeader } from "~/components/ui/sort-header";
 import { formatDateTime } from "~/lib/format";
@@ -6,6 +6,7 @@ import type { CheckTableParams } from "~/lib/check-table-params";
 import { formatMass } from "~/lib/units";
 import type { InstrumentCheckRow } from "~/queries/instrument-checks.server";
 import type { MassUnit } from "../../../db/schema/enums";
+import { Pager } from "~/components/ui/pager";
 
 const TYPE_LABELS = { sensitivity: "Sensitivity", repeatability: "Repeatability", eccentricity: "Eccentricity" } as const;
 
@@ -20,12 +21,6 @@ interface Props {
 
 /** Every check with its readings; a metrologist can exclude a point from the statistics or note something on it. */
 export function ChecksTable({ page, params, unit, readabilityG, timeZone, canReview }: Props) {
-  const location = useLocation();
-  const link = (patch: Record<string, string>) => {
-    const next = new URLSearchParams(location.search);
-    for (const [k, v] of Object.entries(patch)) next.set(k, v);
-    return `?${next}`;
-  };
   const mass = (g: number) => formatMass(g, unit, readabilityG);
   return (
     <section aria-labelledby="checks-heading" className="rounded-md border border-rule bg-card p-4">
@@ -79,11 +74,7 @@ export function ChecksTable({ page, params, unit, readabilityG, timeZone, canRev
           </tbody>
         </table>
       </div>
-      <nav aria-label="Check pages" className="mt-2 flex gap-3 text-sm">
-        {page.page > 1 ? <Link preventScrollReset to={link({ cpage: String(page.page - 1) })} className="text-accent underline">Newer</Link> : null}
-        <span className="text-ink-soft">Page {page.page} of {page.pages}</span>
-        {page.page < page.pages ? <Link preventScrollReset to={link({ cpage: String(page.page + 1) })} className="text-accent underline">Older</Link> : null}
-      </nav>
+      <Pager page={page.page} pages={page.pages} label="Check pages" param="cpage" previous="Newer" next="Older" keepScroll className="mt-2" />
     </section>
   );
 }

@@ -4,6 +4,7 @@ import { describe, expect, it } from "vitest";
 import { analyzeSeries } from "./analyze";
 import { codeInversions, gridCodes, sortByCode } from "./grid-sort";
 import { mannKendall } from "./mann-kendall";
+import { mannKendallDirect } from "./mann-kendall-direct.testing";
 import { selectPairByBuckets } from "./select";
 import { theilSenAndMannKendall, theilSenSlope } from "./theil-sen";
 import { daysSinceFirst, daysSinceFirstMs } from "./time-axis";
@@ -17,18 +18,6 @@ function seeded(seed: number): () => number {
 function readings(n: number, seed: number, drift = 0): number[] {
   const random = seeded(seed);
   return Array.from({ length: n }, (_, i) => Math.round((100 + drift * i + 0.0003 * (random() + random() - 1)) / 1e-4) * 1e-4);
-}
-
-/** S = Σᵢ<ⱼ sign(yⱼ − yᵢ) and Var(S) with the tie correction, straight from the definitions in O(n²). */
-function mannKendallDirect(values: number[]): { s: number; variance: number } {
-  let s = 0;
-  for (let i = 0; i < values.length; i++) for (let j = i + 1; j < values.length; j++) s += Math.sign(values[j] - values[i]);
-  const counts = new Map<number, number>();
-  for (const v of values) counts.set(v, (counts.get(v) ?? 0) + 1);
-  let tie = 0;
-  for (const t of counts.values()) tie += t * (t - 1) * (2 * t + 5);
-  const n = values.length;
-  return { s, variance: (n * (n - 1) * (2 * n + 5) - tie) / 18 };
 }
 
 describe("Mann–Kendall by grid steps", () => {

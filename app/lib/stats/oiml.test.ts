@@ -2,15 +2,11 @@ import { describe, expect, it } from "vitest";
 import { classConsistencyWarning, eccentricityTestLoad, initialVerificationMpe, inServiceMpe } from "./oiml-r76";
 import { WEIGHT_CLASSES, WEIGHT_NOMINALS_G, weightClassMpeMg } from "./oiml-r111";
 import { describeWithSharedData, readCsv } from "./shared-data.testing";
+import { R111_SPOT_VALUES } from "./r111-spot-values.testing";
 
 // OIML R 111-1:2004 Table 1 (S, two transcriptions agree): REFERENCE.md §1.
 describe("OIML R 111 class mpe look-ups (spot values, REFERENCE.md §1)", () => {
-  it.each([
-    ["E2", 1, 0.03], ["F1", 1, 0.1], ["F2", 1, 0.3], ["M1", 1, 1.0],
-    ["E2", 100, 0.16], ["F1", 100, 0.5], ["F2", 100, 1.6], ["M1", 100, 5.0],
-    ["E2", 1000, 1.6], ["F1", 1000, 5.0], ["F2", 1000, 16], ["M1", 1000, 50],
-    ["F1", 10000, 50], ["M1", 10000, 500],
-  ] as const)("%s %f g → %f mg", (weightClass, grams, mg) => {
+  it.each(R111_SPOT_VALUES)("%s %f g → %f mg", (weightClass, grams, mg) => {
     expect(weightClassMpeMg(weightClass, grams)).toBe(mg);
   });
   it("not listed: a 3 g nominal, or M3 below 1 g", () => {
