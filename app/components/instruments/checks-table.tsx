@@ -1,4 +1,4 @@
-import { Form } from "react-router";
+import { Form, useLocation } from "react-router";
 import { OutcomeBadge } from "~/components/ui/outcome-badge";
 import { SortHeader } from "~/components/ui/sort-header";
 import { formatDateTime } from "~/lib/format";
@@ -21,6 +21,7 @@ interface Props {
 
 /** Every check with its readings; a metrologist can exclude a point from the statistics or note something on it. */
 export function ChecksTable({ page, params, unit, readabilityG, timeZone, canReview }: Props) {
+  const location = useLocation();
   const mass = (g: number) => formatMass(g, unit, readabilityG);
   return (
     <section aria-labelledby="checks-heading" className="rounded-md border border-rule bg-card p-4">
